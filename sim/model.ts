@@ -1,0 +1,62 @@
+// The validated net the engine works on: every quantity is a plain number in SI base units
+// (seconds, volts, ohms, henries, farads, metres, siemens). The application layer (src/scenario)
+// turns a scenario file into this shape; the engine never sees strings with units.
+
+/** Per-unit-length model of a uniform line: R' (ohm/m), L' (H/m), G' (S/m), C' (F/m). */
+export interface LineRLGC {
+  r: number;
+  l: number;
+  g: number;
+  c: number;
+}
+
+/**
+ * A lumped part: the given elements in series. `r` ohms (0 when absent), `l` henries (0 when absent),
+ * `c` farads (undefined when absent: no capacitor, i.e. a DC path). For a shunt part, `rail` is the
+ * voltage the far end of the part is tied to (0 V by default).
+ */
+export interface Part {
+  r: number;
+  l: number;
+  c?: number;
+  rail: number;
+}
+
+export type Signal =
+  | { kind: 'step'; from: number; to: number; start: number; rise: number }
+  | { kind: 'pulse'; from: number; to: number; start: number; rise: number; width: number; fall: number }
+  | { kind: 'clock'; low: number; high: number; period: number; rise: number; fall: number; duty: number; start: number }
+  | { kind: 'bits'; low: number; high: number; bitTime: number; rise: number; fall: number; start: number; bits: Uint8Array; patternName: string }
+  | { kind: 'table'; points: ReadonlyArray<readonly [number, number]> };
+
+export type RouteItem =
+  | { kind: 'line'; name: string; line: LineRLGC; length: number }
+  | { kind: 'series'; name: string; part: Part }
+  | { kind: 'shunt'; name: string; parts: Part[] };
+
+export type ProbeSpec =
+  | { name: string; at: 'driver' }
+  | { name: string; at: 'receiver' }
+  | { name: string; at: 'line'; item: string; position: number }
+  | { name: string; at: 'series'; item: string; side: 'in' | 'out' }
+  | { name: string; at: 'shunt'; item: string };
+
+export interface RunSettings {
+  /** Simulated time span (s); undefined = choose from the signal and the route's delay. */
+  duration?: number;
+  /** Minimum number of time steps per 10–90 % rise time of the fastest edge. */
+  cellsPerRise: number;
+  /** Interval between recorded samples (s); undefined = every time step. */
+  sample?: number;
+}
+
+export interface Net {
+  title: string;
+  description?: string;
+  driver: { signal: Signal; resistance: number };
+  route: RouteItem[];
+  /** Parts from the receiver node to rails, in parallel; empty = open end. */
+  receiver: Part[];
+  probes: ProbeSpec[];
+  run: RunSettings;
+}

@@ -1,0 +1,41 @@
+// What a simulation hands back: the discretization it chose and the probe records.
+// Renderers, writers and measurements read only this, never solver state.
+import type { NdArray } from 'ndarray';
+
+export interface SegmentPlan {
+  name: string;
+  length: number;
+  cells: number;
+  cellLength: number;
+  /** One-way delay of the segment (s), length·√(L'C'). */
+  delay: number;
+  /** Characteristic impedance √(L'/C') at high frequency (ohm). */
+  z0: number;
+  /** Courant number v·Δt/Δz; ≤ 1 for stability, 1 is dispersion-free on a lossless line. */
+  courant: number;
+}
+
+export interface Discretization {
+  dt: number;
+  steps: number;
+  duration: number;
+  /** Total number of line cells in the route. */
+  cells: number;
+  nodes: number;
+  segments: SegmentPlan[];
+  /** Why Δt has the value it has (the limiting rule). */
+  dtReason: string;
+}
+
+export interface ProbeRecord {
+  names: string[];
+  /** Time between samples (s); sample i is at t = i·dtSample. */
+  dtSample: number;
+  /** Shape [probes, samples], volts. Read `.data` directly in loops. */
+  values: NdArray<Float64Array>;
+}
+
+export interface SimResult {
+  discretization: Discretization;
+  record: ProbeRecord;
+}

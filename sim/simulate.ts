@@ -1,0 +1,60 @@
+// The engine's entry point: net → discretization → ladder → DC start → leapfrog time loop → probe records.
+import ndarray from 'ndarray';
+import { solveDc } from './dc.js';
+import { discretize } from './discretize.js';
+import { buildLadder } from './ladder.js';
+import { checkLimits, DEFAULT_LIMITS, estimateRun, type RunLimits } from './limits.js';
+import { advanceLineCells, buildLineKernel } from './line-kernel.js';
+import { advanceLumped, buildLumped } from './lumped.js';
+import type { Net } from './model.js';
+import { recordProbes, resolveProbes } from './probes.js';
+import type { Discretization, SimResult } from './result.js';
+import { signalFunction } from './signals.js';
+
+export interface SimulateOptions {
+  /** Run even when a size limit would be exceeded. */
+  force?: boolean;
+  limits?: Partial<RunLimits>;
+}
+
+/** The discretization a run would use, and whether it fits the limits, without allocating the solver. */
+export function planRun(net: Net, options: SimulateOptions = {}): { plan: Discretization; refusal?: string } {
+  const plan = discretize(net);
+  try {
+    checkLimits(plan, estimateRun(plan, net.probes.length, net.run.sample), { ...DEFAULT_LIMITS, ...options.limits });
+    return { plan };
+  } catch (e) {
+    return { plan, refusal: (e as Error).message };
+  }
+}
+
+export function simulate(net: Net, options: SimulateOptions = {}): SimResult {
+  const plan = discretize(net);
+  const est = estimateRun(plan, net.probes.length, net.run.sample);
+  if (!options.force) checkLimits(plan, est, { ...DEFAULT_LIMITS, ...options.limits });
+
+  const source = signalFunction(net.driver.signal);
+  const ladder = buildLadder(net, plan);
+  const taps = resolveProbes(net.probes, ladder);
+  const dc = solveDc(ladder, source(0));
+  const lumped = buildLumped(ladder, plan.dt, dc, source(0));
+  const cells = buildLineKernel(ladder, plan.dt, dc, lumped.isLumpedNode);
+
+  const { samples, stride } = est;
+  const values = new Float64Array(net.probes.length * samples);
+  recordProbes(taps, cells.v, values, samples, 0);
+  const dt = plan.dt;
+  for (let n = 0; n < plan.steps; n++) {
+    advanceLineCells(cells);
+    advanceLumped(lumped, cells.i, cells.v, source((n + 1) * dt));
+    if ((n + 1) % stride === 0) recordProbes(taps, cells.v, values, samples, (n + 1) / stride);
+  }
+  return {
+    discretization: plan,
+    record: {
+      names: net.probes.map((p) => p.name),
+      dtSample: stride * dt,
+      values: ndarray(values, [net.probes.length, samples]),
+    },
+  };
+}
