@@ -1,0 +1,74 @@
+// Probe records as CSV: header `time_s,<probe names>`, then one row per sample.
+//
+// Numbers are written in full precision with JavaScript's shortest round-trip formatting
+// (`String(x)`: parsing the text gives back the identical double). Sample i's time is computed as
+// i·dtSample, never accumulated, so it carries no drift. Long records are produced in chunks of
+// rows so that no single string grows beyond a few megabytes.
+import type { ProbeRecord } from '../../sim/result.js';
+import type { ChunkSink } from './atomic.js';
+
+/** Rows per chunk: about 25 bytes a value, so a few MB per chunk for a handful of probes. */
+export const DEFAULT_ROWS_PER_CHUNK = 8192;
+
+/** RFC 4180 quoting for a header field that needs it (comma, quote, CR or LF). */
+export function csvField(text: string): string {
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+export function csvHeader(names: readonly string[]): string {
+  return ['time_s', ...names].map(csvField).join(',') + '\n';
+}
+
+/** Shortest text that parses back to the same double; `-0` is written as `0`. */
+export function formatNumber(x: number): string {
+  return String(x);
+}
+
+/** Rows of the record as probe-major views: one Float64Array of samples per probe. */
+export function probeRows(record: ProbeRecord): Float64Array[] {
+  const v = record.values;
+  const [probes, samples] = v.shape;
+  const rows: Float64Array[] = [];
+  for (let p = 0; p < probes; p++) {
+    if (v.stride[1] === 1) {
+      const start = v.offset + p * v.stride[0];
+      rows.push(v.data.subarray(start, start + samples));
+    } else {
+      const row = new Float64Array(samples);
+      for (let i = 0; i < samples; i++) row[i] = v.get(p, i);
+      rows.push(row);
+    }
+  }
+  return rows;
+}
+
+/** The CSV text in chunks: first the header, then blocks of `rowsPerChunk` rows. */
+export function* csvChunks(record: ProbeRecord, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Generator<string> {
+  const rows = probeRows(record);
+  const samples = record.values.shape[1];
+  const dt = record.dtSample;
+  yield csvHeader(record.names);
+  const parts: string[] = [];
+  for (let i0 = 0; i0 < samples; i0 += rowsPerChunk) {
+    const i1 = Math.min(samples, i0 + rowsPerChunk);
+    parts.length = 0;
+    for (let i = i0; i < i1; i++) {
+      let line = formatNumber(i * dt);
+      for (let p = 0; p < rows.length; p++) line += ',' + formatNumber(rows[p][i]);
+      parts.push(line);
+    }
+    yield parts.join('\n') + '\n';
+  }
+}
+
+/** The whole CSV as one string; for short records and tests. Use {@link writeCsv} for files. */
+export function probeRecordToCsv(record: ProbeRecord): string {
+  let s = '';
+  for (const chunk of csvChunks(record)) s += chunk;
+  return s;
+}
+
+/** Writes the CSV into a sink chunk by chunk, waiting for the sink between chunks. */
+export async function writeCsv(record: ProbeRecord, sink: ChunkSink, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Promise<void> {
+  for (const chunk of csvChunks(record, rowsPerChunk)) await sink.write(chunk);
+}

@@ -1,0 +1,86 @@
+// summary.json: what was run, how it was discretized, and per-probe statistics.
+//
+// The summary is a plain object built in sections. The core sections (tool, scenario,
+// discretization, record, probes) are filled here; other modules add their own top-level sections
+// (for example "measurements" or "checks") with {@link addSummarySection} before it is written.
+// Every number is in SI base units (s, V, m, ohm). The file holds nothing that changes from one run
+// to the next (no timestamps, no wall time), so the same scenario and tool version give the same
+// bytes.
+import { createHash } from 'node:crypto';
+import type { Discretization, ProbeRecord } from '../../sim/result.js';
+import { probeRows } from './csv.js';
+import { probeStats, type ProbeStats } from './crossing.js';
+import { toolInfo, type ToolInfo } from './tool.js';
+
+/** Bumped when a core section changes shape incompatibly. */
+export const SUMMARY_FORMAT = 1;
+
+export interface ScenarioInfo {
+  /** The scenario file as given on the command line or to the library. */
+  file: string;
+  /** SHA-256 of the file's bytes, hex. */
+  sha256: string;
+  title: string;
+}
+
+export interface RecordInfo {
+  samples: number;
+  /** Time between samples (s); sample i is at t = i·dtSample. */
+  dtSample: number;
+  /** Time of the last sample (s). */
+  end: number;
+}
+
+export interface Summary {
+  format: number;
+  tool: ToolInfo;
+  scenario: ScenarioInfo;
+  discretization: Discretization;
+  record: RecordInfo;
+  /** Keyed by probe name, in probe order. */
+  probes: Record<string, ProbeStats>;
+  /** Sections added by other modules. */
+  [section: string]: unknown;
+}
+
+export interface SummaryInput {
+  scenario: ScenarioInfo;
+  discretization: Discretization;
+  record: ProbeRecord;
+  /** Defaults to this package's name and version. */
+  tool?: ToolInfo;
+}
+
+export function sha256Hex(bytes: Uint8Array | string): string {
+  return createHash('sha256').update(bytes).digest('hex');
+}
+
+export function buildSummary(input: SummaryInput): Summary {
+  const { record } = input;
+  const samples = record.values.shape[1];
+  const rows = probeRows(record);
+  const probes: Record<string, ProbeStats> = {};
+  record.names.forEach((name, p) => {
+    if (Object.prototype.hasOwnProperty.call(probes, name)) throw new Error(`duplicate probe name '${name}' in the record`);
+    probes[name] = probeStats(rows[p], record.dtSample);
+  });
+  return {
+    format: SUMMARY_FORMAT,
+    tool: input.tool ?? toolInfo(),
+    scenario: { ...input.scenario },
+    discretization: input.discretization,
+    record: { samples, dtSample: record.dtSample, end: (samples - 1) * record.dtSample },
+    probes,
+  };
+}
+
+/** Adds a top-level section; refuses to replace one that is already there. */
+export function addSummarySection(summary: Summary, key: string, value: unknown): void {
+  if (Object.prototype.hasOwnProperty.call(summary, key)) throw new Error(`summary already has a section '${key}'`);
+  summary[key] = value;
+}
+
+/** Pretty JSON with a final newline. Non-finite numbers (which JSON cannot hold) become null. */
+export function summaryToJson(summary: Summary): string {
+  return JSON.stringify(summary, null, 2) + '\n';
+}

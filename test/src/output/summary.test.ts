@@ -1,0 +1,113 @@
+import ndarray from 'ndarray';
+import { describe, expect, it } from 'vitest';
+import type { Discretization, ProbeRecord } from '../../../sim/result.js';
+import { crossing50, probeStats } from '../../../src/output/crossing.js';
+import { addSummarySection, buildSummary, sha256Hex, summaryToJson } from '../../../src/output/summary.js';
+
+describe('first 50 % crossing (analytic linear ramps)', () => {
+  it('finds a rising ramp crossing exactly at its midpoint when a sample sits there', () => {
+    // 0 → 4 V over samples 0..4 with dt = 0.5 s: the ramp's midpoint is sample 2, t = 1 s.
+    expect(crossing50([0, 1, 2, 3, 4], 0.5)).toEqual({ level: 2, time: 1, direction: 'rising' });
+  });
+
+  it('interpolates linearly between samples, still exactly at the midpoint', () => {
+    // 0 → 3 V over samples 0..3: level 1.5 V halfway between samples 1 and 2, t = 1.5·dt.
+    expect(crossing50([0, 1, 2, 3], 0.5)).toEqual({ level: 1.5, time: 0.75, direction: 'rising' });
+  });
+
+  it('handles flat tails before and after a ramp, and falling edges', () => {
+    // Ramp from sample 2 (3.3 V) to sample 6 (0 V): midpoint at sample 4.
+    const v = [3.3, 3.3, 3.3, 2.475, 1.65, 0.825, 0, 0, 0];
+    const c = crossing50(v, 1e-9);
+    expect(c.direction).toBe('falling');
+    expect(c.level).toBe(1.65);
+    expect(c.time).toBe(4e-9);
+  });
+
+  it('reports the first crossing of a ringing edge, not a later one', () => {
+    // Overshoots and rings back below the level before settling at 2.
+    const c = crossing50([0, 0.5, 3, 0.5, 2, 2], 1);
+    expect(c.level).toBe(1);
+    expect(c.time).toBe(1 + 0.5 / 2.5);
+  });
+
+  it('gives null with a reason when the record ends where it started', () => {
+    const pulse = crossing50([0, 1, 3, 1, 0], 1);
+    expect(pulse.time).toBeNull();
+    expect(pulse.reason).toMatch(/no net transition/);
+    expect(crossing50([], 1).time).toBeNull();
+    const unstable = crossing50([0, NaN, 1], 1);
+    expect(unstable.time).toBeNull();
+    expect(unstable.reason).toMatch(/non-finite/);
+  });
+
+  it('computes min, max, initial and final', () => {
+    const s = probeStats([1, -2, 5, 4], 0.1);
+    expect([s.min, s.max, s.initial, s.final]).toEqual([-2, 5, 1, 4]);
+  });
+});
+
+describe('summary.json', () => {
+  const discretization: Discretization = {
+    dt: 1e-11,
+    steps: 8,
+    duration: 8e-11,
+    cells: 4,
+    nodes: 5,
+    segments: [{ name: 'trace', length: 0.1, cells: 4, cellLength: 0.025, delay: 4e-11, z0: 50, courant: 1 }],
+    dtReason: 'test',
+  };
+  // Two probes over 5 samples at 2e-11 s: a linear ramp 0 → 2 V and a pulse that returns to 0.
+  const record: ProbeRecord = {
+    names: ['tx', 'rx'],
+    dtSample: 2e-11,
+    values: ndarray(new Float64Array([0, 0.5, 1, 1.5, 2, 0, 1, 3, 1, 0]), [2, 5]),
+  };
+  const summary = buildSummary({
+    scenario: { file: 'nets/demo.json', sha256: sha256Hex('{"title":"t"}'), title: 'Demo net' },
+    discretization,
+    record,
+  });
+
+  it('names the tool and version from package.json and hashes the scenario bytes', async () => {
+    const pkg = JSON.parse((await import('node:fs')).readFileSync('package.json', 'utf8'));
+    expect(summary.tool).toEqual({ name: 'ladderwave', version: pkg.version });
+    // SHA-256 of the bytes {"title":"t"}, computed independently with `sha256sum`.
+    expect(summary.scenario).toEqual({
+      file: 'nets/demo.json',
+      sha256: 'fd32f01954a82d8192431bf0c8d2fe22d8c10a9d62a1f4aad96228b065e6cc65',
+      title: 'Demo net',
+    });
+    expect(summary.format).toBe(1);
+  });
+
+  it('holds the discretization and the record layout', () => {
+    expect(summary.discretization).toEqual(discretization);
+    expect(summary.record).toEqual({ samples: 5, dtSample: 2e-11, end: 8e-11 });
+  });
+
+  it('gives per-probe min, max, final and the 50 % crossing, keyed by name in probe order', () => {
+    expect(Object.keys(summary.probes)).toEqual(['tx', 'rx']);
+    expect(summary.probes.tx).toEqual({
+      min: 0,
+      max: 2,
+      initial: 0,
+      final: 2,
+      crossing50: { level: 1, time: 4e-11, direction: 'rising' },
+    });
+    expect(summary.probes.rx.max).toBe(3);
+    expect(summary.probes.rx.crossing50.time).toBeNull();
+    expect(summary.probes.rx.crossing50.reason).toBeTruthy();
+  });
+
+  it('takes extra sections from other modules and serializes to plain JSON', () => {
+    const s = buildSummary({ scenario: summary.scenario, discretization, record });
+    addSummarySection(s, 'measurements', { rx: { overshoot: 0.1 } });
+    expect(() => addSummarySection(s, 'probes', {})).toThrow(/already/);
+    const back = JSON.parse(summaryToJson(s));
+    expect(back.measurements).toEqual({ rx: { overshoot: 0.1 } });
+    expect(back.probes.rx.crossing50.time).toBeNull();
+    expect(summaryToJson(s).endsWith('}\n')).toBe(true);
+    expect(Object.keys(back)).toEqual(['format', 'tool', 'scenario', 'discretization', 'record', 'probes', 'measurements']);
+  });
+});
