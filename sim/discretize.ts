@@ -32,13 +32,14 @@ export function defaultDuration(net: Net): number {
 }
 
 export function discretize(net: Net): Discretization {
-  const edge = fastestEdge(net.driver.signal);
   const duration = net.run.duration ?? defaultDuration(net);
   const lines = net.route.filter((i) => i.kind === 'line');
-  // Without a finite edge (a constant source) the time step comes from the route alone.
+  // A constant source has no edge; the route's own delay then stands in for the rise time.
+  const signalEdge = fastestEdge(net.driver.signal);
+  const edge = Number.isFinite(signalEdge) ? signalEdge : routeDelay(net) || Infinity;
   const dtEdge = Number.isFinite(edge) ? edge / net.run.cellsPerRise : Infinity;
   let dt = dtEdge;
-  let dtReason = `rise time ${edge} s / cellsPerRise ${net.run.cellsPerRise}`;
+  let dtReason = `${Number.isFinite(signalEdge) ? 'fastest edge' : 'route delay (constant source)'} ${edge} s / cellsPerRise ${net.run.cellsPerRise}`;
   // Each segment needs at least ceil(TD/dtEdge) cells so that a cell's delay resolves the edge;
   // Δt may not exceed any cell's delay (Courant ≤ 1), so Δt = min over segments of TD / that count.
   for (const item of lines) {
