@@ -1,0 +1,14 @@
+// What every command gets from the program: where to print, and process-level hooks.
+import type { CliIO } from './io.js';
+import type { ExitCode } from './exit.js';
+
+export interface CliContext {
+  io: CliIO;
+  /** Set by a command's action; the program returns it. */
+  exitCode: ExitCode;
+  /**
+   * Called when outputs start being written; returns a function to call when they are done.
+   * The real CLI uses it to remove temporary files if the user interrupts the write (Ctrl-C).
+   */
+  guardWrites?: () => () => void;
+}

@@ -1,0 +1,61 @@
+// Human-readable text for the terminal: aligned tables and the per-scenario run summary.
+import type { RunReport } from '../output/run.js';
+import { formatSI } from '../units.js';
+
+export type Align = 'l' | 'r';
+
+/** Pads the cells of `rows` into aligned columns separated by `gap` spaces; trailing spaces trimmed. */
+export function table(rows: readonly (readonly string[])[], align: readonly Align[] = [], gap = 2): string[] {
+  const widths: number[] = [];
+  for (const row of rows) row.forEach((cell, j) => (widths[j] = Math.max(widths[j] ?? 0, [...cell].length)));
+  return rows.map((row) =>
+    row
+      .map((cell, j) => {
+        const pad = ' '.repeat(widths[j] - [...cell].length);
+        return align[j] === 'r' ? pad + cell : cell + pad;
+      })
+      .join(' '.repeat(gap))
+      .trimEnd(),
+  );
+}
+
+/** Label column on the left, content lines on the right; continuation lines indented under the content. */
+function section(label: string, lines: string[], labelWidth: number): string[] {
+  return lines.map((l, i) => `  ${(i === 0 ? label : '').padEnd(labelWidth)}  ${l}`.trimEnd());
+}
+
+const si = (value: number, unit: string) => formatSI(value, unit, 4);
+
+/** The summary printed after a scenario has run (without --quiet). */
+export function formatRunReport(report: RunReport): string {
+  const { net } = report.scenario;
+  const d = report.result.discretization;
+  const lw = 9;
+  const lines: string[] = [net.title || '(untitled)'];
+  lines.push(...section('scenario', [report.scenario.file], lw));
+  lines.push(...section('Δt', [`${si(d.dt, 's')}  (${d.dtReason})`], lw));
+  if (d.segments.length) {
+    const rows = d.segments.map((s) => [s.name, si(s.length, 'm'), `${s.cells} cells`, `Courant ${s.courant.toFixed(4)}`]);
+    lines.push(...section('segments', table(rows, ['l', 'r', 'r', 'l']), lw));
+  } else {
+    lines.push(...section('segments', ['none (lumped parts only)'], lw));
+  }
+  const wall = report.wallTime;
+  lines.push(
+    ...section(
+      'steps',
+      [`${d.steps} steps × ${d.nodes} nodes to ${si(d.duration, 's')}, ${si(wall.simulate, 's')} simulating, ${si(wall.total, 's')} in all`],
+      lw,
+    ),
+  );
+  const probeRows = Object.entries(report.summary.probes).map(([name, s]) => [
+    name,
+    si(s.min, 'V'),
+    si(s.max, 'V'),
+    si(s.final, 'V'),
+    s.crossing50.time === null ? '—' : si(s.crossing50.time, 's'),
+  ]);
+  lines.push(...section('probes', table([['', 'min', 'max', 'final', '50 % at'], ...probeRows], ['l', 'r', 'r', 'r', 'r']), lw));
+  lines.push(...section('wrote', report.files, lw));
+  return lines.join('\n') + '\n';
+}

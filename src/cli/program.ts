@@ -1,0 +1,49 @@
+// The `ladderwave` command line: commander setup shared by all commands, and the mapping of
+// commander's own usage errors onto exit code 2. Each command lives in commands/<name>.ts and
+// registers itself here.
+import { Command, CommanderError } from 'commander';
+import { toolInfo } from '../output/tool.js';
+import { registerRunCommand } from './commands/run.js';
+import type { CliContext } from './context.js';
+import { EXIT, type ExitCode } from './exit.js';
+import { processIO, type CliIO } from './io.js';
+
+export function createProgram(ctx: CliContext): Command {
+  const program = new Command('ladderwave')
+    .description('Time-domain simulation of pulses and digital edges on transmission lines (RLGC ladder, leapfrog FDTD).')
+    .version(toolInfo().version, '-V, --version', 'print the version')
+    .helpOption('-h, --help', 'show help')
+    .helpCommand('help [command]', 'show help for a command')
+    .showHelpAfterError('(add --help for usage)')
+    // Commander must not exit the process itself: runCli maps its errors onto our exit codes.
+    // These settings are inherited by the commands registered below.
+    .exitOverride()
+    .configureOutput({
+      writeOut: (s) => ctx.io.out(s),
+      writeErr: (s) => ctx.io.err(s),
+    });
+  registerRunCommand(program, ctx);
+  return program;
+}
+
+export interface RunCliOptions {
+  io?: CliIO;
+  guardWrites?: CliContext['guardWrites'];
+}
+
+/** Runs the CLI on `args` (without the node and script paths) and returns the exit code. */
+export async function runCli(args: readonly string[], options: RunCliOptions = {}): Promise<ExitCode> {
+  const ctx: CliContext = { io: options.io ?? processIO, exitCode: EXIT.ok, guardWrites: options.guardWrites };
+  const program = createProgram(ctx);
+  try {
+    await program.parseAsync([...args], { from: 'user' });
+  } catch (e) {
+    if (e instanceof CommanderError) {
+      // --help and --version end with exit code 0; every other commander error is a usage error
+      // (unknown option or command, missing argument, no command given).
+      return e.exitCode === 0 ? EXIT.ok : EXIT.badInput;
+    }
+    throw e;
+  }
+  return ctx.exitCode;
+}

@@ -1,0 +1,33 @@
+// The ladderwave library: `import { loadScenario, simulate, runScenarioFile } from 'ladderwave'`.
+// The command line (src/cli) is built on exactly these functions.
+
+// Scenario files → validated nets.
+export { checkScenario, loadScenario, parseScenario, readScenario, scenarioFromValue, type CheckResult } from './scenario/load.js';
+export { formatProblem, ScenarioError, type Problem } from './scenario/problems.js';
+
+// The engine.
+export { planRun, simulate, type SimulateOptions } from '../sim/simulate.js';
+export { NetError, RunRefused, type NetProblem } from '../sim/errors.js';
+export { DEFAULT_LIMITS, type RunLimits } from '../sim/limits.js';
+export type { LineRLGC, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
+export type { Discretization, ProbeRecord, SegmentPlan, SimResult } from '../sim/result.js';
+
+// Outputs.
+export {
+  OUTPUT_FILES,
+  OutputError,
+  readScenarioFile,
+  renderResult,
+  runScenarioFile,
+  writeRunOutputs,
+  type LoadedScenario,
+  type RunOptions,
+  type RunOutputs,
+  type RunPhase,
+  type RunReport,
+} from './output/run.js';
+export { csvChunks, csvHeader, probeRecordToCsv, probeRows, writeCsv } from './output/csv.js';
+export { crossing50, probeStats, type Crossing50, type ProbeStats } from './output/crossing.js';
+export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
+export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';
+export { toolInfo, type ToolInfo } from './output/tool.js';
