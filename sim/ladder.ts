@@ -2,7 +2,7 @@
 // Branch j joins node j to node j+1 and is either one line cell (R'ΔZ in series with L'ΔZ) or a
 // lumped series part. Each cell puts half its C'ΔZ and G'ΔZ on each of its two end nodes, the
 // standard staggered placement (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD chapter).
-import type { Net, Part } from './model.js';
+import type { LineRLGC, Net, Part } from './model.js';
 import type { Discretization } from './result.js';
 
 /** Marks an external end of a lumped branch: the driver's source or a fixed rail. */
@@ -11,7 +11,7 @@ export const EXTERNAL = -1;
 /** A lumped branch from node `p` to node `q` (either may be EXTERNAL), elements R, L, C in series. */
 export interface LumpedBranch {
   item: string;
-  role: 'driver' | 'series' | 'shunt' | 'receiver';
+  role: 'driver' | 'series' | 'shunt' | 'receiver' | 'dielectric';
   p: number;
   q: number;
   part: Part;
@@ -24,6 +24,8 @@ export interface ItemSpan {
   /** Last node of the item. */
   end: number;
   cellLength: number;
+  /** For a line: its per-unit-length model. */
+  line?: LineRLGC;
 }
 
 export interface Ladder {
@@ -69,7 +71,17 @@ export function buildLadder(net: Net, plan: Discretization): Ladder {
         ladder.nodeG[j] += halfG;
         ladder.nodeG[j + 1] += halfG;
       }
-      ladder.items.set(item.name, { kind: 'line', start: node, end: node + seg.cells, cellLength: dz });
+      ladder.items.set(item.name, { kind: 'line', start: node, end: node + seg.cells, cellLength: dz, line: item.line });
+      // The half cells at the segment's two ends carry their share of the dielectric branches as
+      // lumped R–C parts, solved with the end nodes; interior nodes keep theirs in the line kernel.
+      if (seg.cells > 0) {
+        for (const t of item.line.shunt ?? []) {
+          const c = (t.value * dz) / 2;
+          for (const end of [node, node + seg.cells]) {
+            ladder.lumped.push({ item: item.name, role: 'dielectric', p: end, q: EXTERNAL, part: { r: t.tau / c, l: 0, c, rail: 0 } });
+          }
+        }
+      }
       node += seg.cells;
     } else if (item.kind === 'series') {
       ladder.lumped.push({ item: item.name, role: 'series', p: node, q: node + 1, part: item.part });

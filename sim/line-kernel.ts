@@ -5,8 +5,11 @@
 // (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD chapter.)
 // Cells of one segment are identical, so each segment's coefficients are four scalars; the nodes
 // where two segments meet, or where a segment ends open, are updated in a short pass of their own.
+// A segment with frequency-dependent loss also carries one state per R‖L section in every cell and
+// one per R–C dielectric branch on every interior node (see lossy-segment.ts).
 import type { DcState } from './dc.js';
 import type { Ladder } from './ladder.js';
+import { advanceLossySegment, buildLossySegments, type LossySegments } from './lossy-segment.js';
 
 export interface LineKernel {
   /** Node voltages; index `nodes` is a zero pad so the last node needs no special case. */
@@ -24,6 +27,8 @@ export interface LineKernel {
   joinNode: Int32Array;
   joinC: Float64Array;
   joinD: Float64Array;
+  /** Segments with auxiliary loss states; they are not in the plain segment arrays above. */
+  lossy: LossySegments;
 }
 
 function nodeCoefficients(c: number, g: number, dt: number): [number, number] {
@@ -33,7 +38,9 @@ function nodeCoefficients(c: number, g: number, dt: number): [number, number] {
 
 export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpedNode: Uint8Array): LineKernel {
   const m = ladder.nodes;
-  const spans = [...ladder.items.values()].filter((s) => s.kind === 'line' && s.end > s.start);
+  const lines = [...ladder.items.values()].filter((s) => s.kind === 'line' && s.end > s.start);
+  const hasAux = (s: (typeof lines)[number]) => (s.line?.series?.length ?? 0) + (s.line?.shunt?.length ?? 0) > 0;
+  const spans = lines.filter((s) => !hasAux(s));
   const k: LineKernel = {
     v: new Float64Array(m + 1),
     i: new Float64Array(m + 1),
@@ -46,6 +53,7 @@ export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpe
     joinNode: new Int32Array(0),
     joinC: new Float64Array(0),
     joinD: new Float64Array(0),
+    lossy: buildLossySegments(lines.filter(hasAux), dt, dc),
   };
   const joins = new Set<number>();
   spans.forEach((s, n) => {
@@ -57,8 +65,8 @@ export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpe
     const cellC = ladder.nodeC[s.start + 1] * (s.end - s.start > 1 ? 1 : 0);
     const cellG = ladder.nodeG[s.start + 1] * (s.end - s.start > 1 ? 1 : 0);
     [k.segC[n], k.segD[n]] = cellC > 0 ? nodeCoefficients(cellC, cellG, dt) : [1, 0];
-    for (const end of [s.start, s.end]) if (!isLumpedNode[end]) joins.add(end);
   });
+  for (const s of lines) for (const end of [s.start, s.end]) if (!isLumpedNode[end]) joins.add(end);
   const joinList = [...joins].sort((a, b) => a - b);
   k.joinNode = Int32Array.from(joinList);
   k.joinC = new Float64Array(joinList.length);
@@ -97,5 +105,6 @@ export function advanceLineCells(k: LineKernel): void {
   for (let s = 0; s < k.segStart.length; s++) {
     advanceSegment(k.v, k.i, k.segStart[s], k.segEnd[s], k.segA[s], k.segB[s], k.segC[s], k.segD[s]);
   }
+  for (let s = 0; s < k.lossy.count; s++) advanceLossySegment(k.lossy, s, k.v, k.i);
   advanceJoins(k);
 }

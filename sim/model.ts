@@ -1,13 +1,32 @@
 // The validated net the engine works on: every quantity is a plain number in SI base units
 // (seconds, volts, ohms, henries, farads, metres, siemens). The application layer (src/scenario)
 // turns a scenario file into this shape; the engine never sees strings with units.
+import type { FreqLine } from './lines/freq-model.js';
 
-/** Per-unit-length model of a uniform line: R' (ohm/m), L' (H/m), G' (S/m), C' (F/m). */
+/** A first-order auxiliary term of a line's per-unit-length model, one state per cell. */
+export interface AuxTerm {
+  /** Series section: resistance R_k (ohm/m) of an R‖L section with L_k = R_k·τ. Shunt branch: C_k (F/m) of a series R–C with R_k·C_k = τ. */
+  value: number;
+  /** Time constant τ (s). */
+  tau: number;
+}
+
+/**
+ * Per-unit-length model of a uniform line: R' (ohm/m), L' (H/m), G' (S/m), C' (F/m). With
+ * frequency-dependent loss, r/l/g/c are the DC resistance, the high-frequency inductance and
+ * capacitance and the DC conductance, and `series`/`shunt` hold the auxiliary terms:
+ * Z'(jω) = r + jωl + Σ R_k·jωτ_k/(1 + jωτ_k),  Y'(jω) = g + jωc + Σ jωC_k/(1 + jωτ_k).
+ * `wideband` is the exact frequency-domain description those terms are fitted to; the engine fits
+ * them for the band the run needs (see realize.ts) when they are absent.
+ */
 export interface LineRLGC {
   r: number;
   l: number;
   g: number;
   c: number;
+  series?: AuxTerm[];
+  shunt?: AuxTerm[];
+  wideband?: FreqLine;
 }
 
 /**

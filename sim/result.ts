@@ -13,6 +13,20 @@ export interface SegmentPlan {
   z0: number;
   /** Courant number v·Δt/Δz; ≤ 1 for stability, 1 is dispersion-free on a lossless line. */
   courant: number;
+  /** For a line with frequency-dependent loss: how its Z′(jω), Y′(jω) were realised in the time domain. */
+  loss?: LossRealisation;
+}
+
+export interface LossRealisation {
+  /** Band of the fit (Hz). */
+  fmin: number;
+  fmax: number;
+  /** R‖L sections (skin effect) and R–C branches (dielectric): one state each per cell. */
+  seriesTerms: number;
+  shuntTerms: number;
+  /** Largest relative error of the realised Z′ and Y′ against the exact model over the band. */
+  maxRelErrorZ: number;
+  maxRelErrorY: number;
 }
 
 export interface Discretization {

@@ -1,13 +1,14 @@
 // The engine's entry point: net → discretization → ladder → DC start → leapfrog time loop → probe records.
 import ndarray from 'ndarray';
 import { solveDc } from './dc.js';
-import { discretize } from './discretize.js';
+import { defaultDuration, discretize } from './discretize.js';
 import { buildLadder } from './ladder.js';
 import { checkLimits, DEFAULT_LIMITS, estimateRun, type RunLimits } from './limits.js';
 import { advanceLineCells, buildLineKernel } from './line-kernel.js';
 import { advanceLumped, buildLumped } from './lumped.js';
 import type { Net } from './model.js';
 import { recordProbes, resolveProbes } from './probes.js';
+import { realizeNet, runBand } from './realize.js';
 import type { Discretization, SimResult } from './result.js';
 import { signalFunction } from './signals.js';
 
@@ -17,9 +18,33 @@ export interface SimulateOptions {
   limits?: Partial<RunLimits>;
 }
 
+/**
+ * Lines with frequency-dependent loss realised for the band this run needs, and the discretization of
+ * the result (the realised lines' high-frequency L′ and C′ set the Courant limit).
+ */
+export function prepareRun(net: Net): { net: Net; plan: Discretization } {
+  const band = runBand(net, net.run.duration ?? defaultDuration(net));
+  const { net: realized, fits } = realizeNet(net, band);
+  const plan = discretize(realized);
+  for (const seg of plan.segments) {
+    const fit = fits.get(seg.name);
+    if (fit) {
+      seg.loss = {
+        fmin: band.fmin,
+        fmax: band.fmax,
+        seriesTerms: fit.series.sections.length,
+        shuntTerms: fit.shunt.branches.length,
+        maxRelErrorZ: fit.maxRelErrorZ,
+        maxRelErrorY: fit.maxRelErrorY,
+      };
+    }
+  }
+  return { net: realized, plan };
+}
+
 /** The discretization a run would use, and whether it fits the limits, without allocating the solver. */
 export function planRun(net: Net, options: SimulateOptions = {}): { plan: Discretization; refusal?: string } {
-  const plan = discretize(net);
+  const { plan } = prepareRun(net);
   try {
     checkLimits(plan, estimateRun(plan, net.probes.length, net.run.sample), { ...DEFAULT_LIMITS, ...options.limits });
     return { plan };
@@ -28,8 +53,8 @@ export function planRun(net: Net, options: SimulateOptions = {}): { plan: Discre
   }
 }
 
-export function simulate(net: Net, options: SimulateOptions = {}): SimResult {
-  const plan = discretize(net);
+export function simulate(input: Net, options: SimulateOptions = {}): SimResult {
+  const { net, plan } = prepareRun(input);
   const est = estimateRun(plan, net.probes.length, net.run.sample);
   if (!options.force) checkLimits(plan, est, { ...DEFAULT_LIMITS, ...options.limits });
 

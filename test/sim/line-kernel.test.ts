@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { advanceLineCells, type LineKernel } from '../../sim/line-kernel.js';
+import { buildLossySegments } from '../../sim/lossy-segment.js';
+
+const noLossySegments = () => buildLossySegments([], 1, { v: new Float64Array(0), branch: new Float64Array(0), lumped: new Float64Array(0) });
 
 // Hand-computed leapfrog steps of the telegrapher equations on a three-node, two-cell ladder
 // (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD update equations).
@@ -17,6 +20,7 @@ function kernel(v: number[], i: number[], a: number, b: number, c: number, d: nu
     joinNode: Int32Array.from([v.length - 2]),
     joinC: Float64Array.from([1]),
     joinD: Float64Array.from([joinD]),
+    lossy: noLossySegments(),
   };
 }
 

@@ -1,0 +1,51 @@
+// Frequency-dependent lines in the time domain: a line described by its exact Z'(jω), Y'(jω)
+// (skin effect, Djordjevic–Sarkar dielectric) is replaced, before discretizing, by a realisation
+// with a few R‖L sections in series and R–C branches in shunt, fitted over the band the run needs.
+import type { LineRLGC, Net, RouteItem } from './model.js';
+import { timeDomainRealisation, type TimeDomainRealisation } from './lines/freq-model.js';
+import { activityEnd, fastestEdge } from './signals.js';
+
+export interface Band {
+  fmin: number;
+  fmax: number;
+}
+
+/**
+ * The band a run needs: up to ten times the edge's knee frequency 0.35/t_r (the usual bandwidth of a
+ * 10–90 % edge, Johnson & Graham, High-Speed Digital Design, ch. 1) and down to a tenth of the
+ * inverse run length.
+ */
+export function runBand(net: Net, duration: number): Band {
+  const edge = fastestEdge(net.driver.signal);
+  const fmax = Number.isFinite(edge) ? 3.5 / edge : 10 / duration;
+  const span = Math.max(duration, activityEnd(net.driver.signal));
+  return { fmin: Math.min(0.1 / span, fmax / 1e3), fmax };
+}
+
+export function realizeLine(line: LineRLGC, band: Band, terms = { skinTerms: 4, debyeTerms: 4 }): { line: LineRLGC; fit: TimeDomainRealisation } {
+  const fit = timeDomainRealisation(line.wideband!, band.fmin, band.fmax, terms);
+  return {
+    fit,
+    line: {
+      r: fit.series.r0,
+      l: fit.series.l,
+      g: fit.shunt.g0,
+      c: fit.shunt.c,
+      series: fit.series.sections.map((s) => ({ value: s.r, tau: s.tau })),
+      shunt: fit.shunt.branches.map((b) => ({ value: b.c, tau: b.tau })),
+      wideband: line.wideband,
+    },
+  };
+}
+
+/** The net with every wideband line realised for `band` (lines that already have their terms are kept). */
+export function realizeNet(net: Net, band: Band): { net: Net; fits: Map<string, TimeDomainRealisation> } {
+  const fits = new Map<string, TimeDomainRealisation>();
+  const route: RouteItem[] = net.route.map((item) => {
+    if (item.kind !== 'line' || !item.line.wideband || item.line.series || item.line.shunt) return item;
+    const r = realizeLine(item.line, band);
+    fits.set(item.name, r.fit);
+    return { ...item, line: r.line };
+  });
+  return { net: { ...net, route }, fits };
+}
