@@ -36,6 +36,8 @@ export interface Ladder {
   cellL: Float64Array;
   cellR: Float64Array;
   isCell: Uint8Array;
+  /** Distance of each node from the driver pin along the route (m); lumped parts have no length. */
+  position: Float64Array;
   /** The driver branch first, then every series, shunt and receiver part. */
   lumped: LumpedBranch[];
   items: Map<string, ItemSpan>;
@@ -50,11 +52,13 @@ export function buildLadder(net: Net, plan: Discretization): Ladder {
     cellL: new Float64Array(Math.max(nodes - 1, 0)),
     cellR: new Float64Array(Math.max(nodes - 1, 0)),
     isCell: new Uint8Array(Math.max(nodes - 1, 0)),
+    position: new Float64Array(nodes),
     lumped: [{ item: 'driver', role: 'driver', p: EXTERNAL, q: 0, part: { r: net.driver.resistance, l: 0, rail: 0 } }],
     items: new Map(),
   };
   const cellsOf = new Map(plan.segments.map((s) => [s.name, s]));
   let node = 0;
+  let distance = 0;
   for (const item of net.route) {
     if (item.kind === 'line') {
       const seg = cellsOf.get(item.name)!;
@@ -62,6 +66,7 @@ export function buildLadder(net: Net, plan: Discretization): Ladder {
       for (let k = 0; k < seg.cells; k++) {
         const j = node + k;
         ladder.isCell[j] = 1;
+        ladder.position[j + 1] = distance + (k + 1) * dz;
         ladder.cellL[j] = item.line.l * dz;
         ladder.cellR[j] = item.line.r * dz;
         const halfC = (item.line.c * dz) / 2;
@@ -83,8 +88,11 @@ export function buildLadder(net: Net, plan: Discretization): Ladder {
         }
       }
       node += seg.cells;
+      distance += item.length;
+      ladder.position[node] = distance;
     } else if (item.kind === 'series') {
       ladder.lumped.push({ item: item.name, role: 'series', p: node, q: node + 1, part: item.part });
+      ladder.position[node + 1] = distance;
       ladder.items.set(item.name, { kind: 'series', start: node, end: node + 1, cellLength: 0 });
       node += 1;
     } else {

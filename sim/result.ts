@@ -49,7 +49,21 @@ export interface ProbeRecord {
   values: NdArray<Float64Array>;
 }
 
+/** Voltage along the route over time, decimated (see route-map.ts for the bound). */
+export interface RouteMapRecord {
+  /** Distance of each column from the driver pin (m). */
+  positions: Float64Array;
+  /** Time between rows (s); row r is at t = r·dtRow. */
+  dtRow: number;
+  /** Shape [rows, columns], volts. */
+  values: NdArray<Float64Array>;
+  /** Every route item with the span it covers along the route (m); lumped parts have from = to. */
+  items: { name: string; kind: 'line' | 'series' | 'shunt'; from: number; to: number }[];
+}
+
 export interface SimResult {
   discretization: Discretization;
   record: ProbeRecord;
+  /** Present when the run was asked to record the route (SimulateOptions.routeMap). */
+  routeMap?: RouteMapRecord;
 }

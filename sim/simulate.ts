@@ -9,6 +9,7 @@ import { advanceLumped, buildLumped } from './lumped.js';
 import type { Net } from './model.js';
 import { recordProbes, resolveProbes } from './probes.js';
 import { realizeNet, runBand } from './realize.js';
+import { finishRouteMap, planRouteMap, recordRouteMap, type RouteMapOptions } from './route-map.js';
 import type { Discretization, SimResult } from './result.js';
 import { signalFunction } from './signals.js';
 
@@ -16,6 +17,8 @@ export interface SimulateOptions {
   /** Run even when a size limit would be exceeded. */
   force?: boolean;
   limits?: Partial<RunLimits>;
+  /** Also record the voltage along the whole route, decimated to at most columns × rows values. */
+  routeMap?: RouteMapOptions;
 }
 
 /**
@@ -67,12 +70,16 @@ export function simulate(input: Net, options: SimulateOptions = {}): SimResult {
 
   const { samples, stride } = est;
   const values = new Float64Array(net.probes.length * samples);
+  const map = options.routeMap ? planRouteMap(ladder, plan.steps, options.routeMap) : undefined;
+  const mapStride = map ? map.stepStride : plan.steps + 1;
   recordProbes(taps, cells.v, values, samples, 0);
+  if (map) recordRouteMap(map, cells.v, 0);
   const dt = plan.dt;
-  for (let n = 0; n < plan.steps; n++) {
+  for (let n = 1; n <= plan.steps; n++) {
     advanceLineCells(cells);
-    advanceLumped(lumped, cells.i, cells.v, source((n + 1) * dt));
-    if ((n + 1) % stride === 0) recordProbes(taps, cells.v, values, samples, (n + 1) / stride);
+    advanceLumped(lumped, cells.i, cells.v, source(n * dt));
+    if (n % stride === 0) recordProbes(taps, cells.v, values, samples, n / stride);
+    if (n % mapStride === 0) recordRouteMap(map!, cells.v, n / mapStride);
   }
   return {
     discretization: plan,
@@ -81,5 +88,6 @@ export function simulate(input: Net, options: SimulateOptions = {}): SimResult {
       dtSample: stride * dt,
       values: ndarray(values, [net.probes.length, samples]),
     },
+    routeMap: map ? finishRouteMap(map, ladder, dt) : undefined,
   };
 }
