@@ -1,0 +1,88 @@
+// The CLI in-process through runCli, with collected output: usage handling and multi-scenario runs.
+import { mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { runCli } from '../../../src/cli/program.js';
+import { BAD_TEXT, SMALL, tempDir, writeScenario } from './fixtures.js';
+
+function collect() {
+  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
+  return io;
+}
+
+const dirs: string[] = [];
+afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
+function dir(): string {
+  const d = tempDir();
+  dirs.push(d);
+  return d;
+}
+
+describe('usage', () => {
+  it.each([
+    [['run'], /missing required argument 'scenario'/],
+    [['run', 'a.json', '--bogus'], /unknown option '--bogus'/],
+    [['frob'], /unknown command 'frob'/],
+    [[], /Usage: ladderwave/],
+    [['run', 'a.json', '--out'], /argument missing/],
+  ])('%j exits 2 with a message on stderr', async (args, message) => {
+    const io = collect();
+    expect(await runCli(args, { io })).toBe(2);
+    expect(io.stderr).toMatch(message);
+    expect(io.stdout).toBe('');
+  });
+
+  it.each([[['--help']], [['run', '--help']], [['help', 'run']], [['-h']]])('%j prints help and exits 0', async (args) => {
+    const io = collect();
+    expect(await runCli(args, { io })).toBe(0);
+    expect(io.stdout).toMatch(/Usage: ladderwave/);
+  });
+
+  it('prints the version from package.json', async () => {
+    const io = collect();
+    expect(await runCli(['--version'], { io })).toBe(0);
+    expect(io.stdout.trim()).toMatch(/^\d+\.\d+\.\d+/);
+  });
+});
+
+describe('run', () => {
+  it('refuses two scenarios that would share an output folder before running either', async () => {
+    const d = dir();
+    const a = writeScenario(d, 'net.json', SMALL);
+    const sub = join(d, 'sub');
+    const io = collect();
+    mkdirSync(sub);
+    const b = writeScenario(sub, 'net.yaml', SMALL);
+    expect(await runCli(['run', a, b, '--out', join(d, 'res')], { io })).toBe(2);
+    expect(io.stderr).toMatch(/would both write to/);
+    expect(readdirSync(d).sort()).toEqual(['net.json', 'sub']);
+  });
+
+  it('runs the good scenarios when another is bad, and exits 2', async () => {
+    const d = dir();
+    const good = writeScenario(d, 'good.json', SMALL);
+    const bad = writeScenario(d, 'bad.json', BAD_TEXT);
+    const io = collect();
+    expect(await runCli(['run', bad, good, '--out', join(d, 'res')], { io })).toBe(2);
+    expect(readdirSync(join(d, 'res'))).toEqual(['good']);
+    expect(io.stderr.trimEnd().split('\n')).toHaveLength(4);
+    expect(io.stdout).toContain('Small matched line');
+  });
+
+  it('guards only the write phase against interruption', async () => {
+    const d = dir();
+    const file = writeScenario(d, 's.json', SMALL);
+    const events: string[] = [];
+    const io = collect();
+    const code = await runCli(['run', file, '--out', join(d, 'o'), '--quiet'], {
+      io,
+      guardWrites: () => {
+        events.push('guard');
+        return () => events.push('release');
+      },
+    });
+    expect(code).toBe(0);
+    expect(events).toEqual(['guard', 'release']);
+    expect(io.stdout + io.stderr).toBe('');
+  });
+});
