@@ -11,7 +11,6 @@ import { dirname, join, resolve, sep } from 'node:path';
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
 import { simulate, type SimulateOptions } from '../../sim/simulate.js';
-import { renderWaveforms } from '../render/waveforms.js';
 import { checkScenario } from '../scenario/load.js';
 import { ScenarioError, type Problem } from '../scenario/problems.js';
 import { AtomicBatch } from './atomic.js';
@@ -91,8 +90,12 @@ export interface RunOutputs {
   summary: Summary;
 }
 
-/** Renders the waveforms PNG of a result (in memory). */
-export function renderResult(title: string, result: SimResult, options: { width?: number; height?: number } = {}): Promise<Buffer> {
+/**
+ * Renders the waveforms PNG of a result (in memory). The renderer (fonts, rasterizer) is loaded on
+ * first use, so importing the library for simulation alone stays light.
+ */
+export async function renderResult(title: string, result: SimResult, options: { width?: number; height?: number } = {}): Promise<Buffer> {
+  const { renderWaveforms } = await import('../render/waveforms.js');
   const { record } = result;
   return renderWaveforms({
     title,
