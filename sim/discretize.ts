@@ -31,6 +31,13 @@ export function defaultDuration(net: Net): number {
   return Math.max(base + tail, base * 1.2, 1e-9);
 }
 
+/** A time for messages: three significant digits with a unit prefix (the engine has no unit library). */
+function seconds(t: number): string {
+  const units: [number, string][] = [[1, 's'], [1e-3, 'ms'], [1e-6, 'µs'], [1e-9, 'ns'], [1e-12, 'ps'], [1e-15, 'fs']];
+  const [scale, unit] = units.find(([s]) => Math.abs(t) >= s) ?? units[units.length - 1];
+  return `${Number((t / scale).toPrecision(3))} ${unit}`;
+}
+
 export function discretize(net: Net): Discretization {
   const duration = net.run.duration ?? defaultDuration(net);
   const lines = net.route.filter((i) => i.kind === 'line');
@@ -39,7 +46,7 @@ export function discretize(net: Net): Discretization {
   const edge = Number.isFinite(signalEdge) ? signalEdge : routeDelay(net) || Infinity;
   const dtEdge = Number.isFinite(edge) ? edge / net.run.cellsPerRise : Infinity;
   let dt = dtEdge;
-  let dtReason = `${Number.isFinite(signalEdge) ? 'fastest edge' : 'route delay (constant source)'} ${edge} s / cellsPerRise ${net.run.cellsPerRise}`;
+  let dtReason = `${Number.isFinite(signalEdge) ? 'fastest edge' : 'route delay (constant source)'} ${seconds(edge)} / cellsPerRise ${net.run.cellsPerRise}`;
   // Each segment needs at least ceil(TD/dtEdge) cells so that a cell's delay resolves the edge;
   // Δt may not exceed any cell's delay (Courant ≤ 1), so Δt = min over segments of TD / that count.
   for (const item of lines) {
@@ -49,7 +56,7 @@ export function discretize(net: Net): Discretization {
     const candidate = td / minCells;
     if (candidate < dt) {
       dt = candidate;
-      dtReason = `segment '${item.name}' (delay ${td} s in ${minCells} cell${minCells > 1 ? 's' : ''}) at Courant 1`;
+      dtReason = `segment '${item.name}': ${seconds(td)} of delay in ${minCells} cell${minCells > 1 ? 's' : ''} at Courant 1`;
     }
   }
   if (!Number.isFinite(dt)) {

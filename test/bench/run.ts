@@ -1,0 +1,53 @@
+// `npm run bench`: nanoseconds per cell-step of the line kernel at several sizes, and the whole-run
+// time of every scenario in scenarios/. A benchmark, not a test: it prints numbers and asserts nothing.
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { simulate } from '../../sim/simulate.js';
+import type { Net } from '../../sim/model.js';
+import { loadScenario } from '../../src/scenario/load.js';
+
+function lineNet(cells: number): Net {
+  // 1 m of 50 Ω line at 5 ns/m, edge chosen so the line gets `cells` cells at 20 steps per rise
+  const rise = (5e-9 / cells) * 20;
+  return {
+    title: `bench ${cells}`,
+    driver: { signal: { kind: 'step', from: 0, to: 1, start: 0, rise }, resistance: 25 },
+    route: [{ kind: 'line', name: 'line', line: { r: 0, g: 0, l: 250e-9, c: 100e-12 }, length: 1 }],
+    receiver: [{ r: 0, l: 0, c: 2e-12, rail: 0 }],
+    probes: [{ name: 'rx', at: 'receiver' }],
+    run: { cellsPerRise: 20, duration: 0 },
+  };
+}
+
+function kernelBench(cells: number): { nsPerCellStep: number; steps: number } {
+  const target = 4e8; // cell-steps per measurement: about a second at 2 ns
+  const steps = Math.max(200, Math.round(target / cells));
+  const base = lineNet(cells);
+  const dt = 5e-9 / cells;
+  const run = (n: number) => simulate({ ...base, run: { ...base.run, duration: n * dt, sample: n * dt } });
+  run(Math.min(steps, 2000)); // warm up the JIT
+  const t0 = process.hrtime.bigint();
+  const res = run(steps);
+  const ns = Number(process.hrtime.bigint() - t0);
+  return { nsPerCellStep: ns / (res.discretization.steps * res.discretization.nodes), steps: res.discretization.steps };
+}
+
+async function scenarioBench(dir: string): Promise<void> {
+  const files = readdirSync(dir).filter((f) => /\.(json|ya?ml)$/.test(f)).sort();
+  for (const f of files) {
+    const net = await loadScenario(join(dir, f));
+    const t0 = process.hrtime.bigint();
+    const res = simulate(net);
+    const ms = Number(process.hrtime.bigint() - t0) / 1e6;
+    const d = res.discretization;
+    console.log(`  ${f.padEnd(36)} ${ms.toFixed(1).padStart(9)} ms   ${String(d.nodes).padStart(7)} nodes × ${String(d.steps).padStart(7)} steps`);
+  }
+}
+
+console.log('line kernel, lossless, one leapfrog step of every cell (target ≤ 2.0 ns per cell-step at N = 2 000):');
+for (const cells of [200, 2000, 20000, 200000]) {
+  const r = kernelBench(cells);
+  console.log(`  N = ${String(cells).padStart(6)}: ${r.nsPerCellStep.toFixed(2).padStart(6)} ns per cell-step (${r.steps} steps)`);
+}
+console.log('scenarios (whole run, including set-up):');
+await scenarioBench(join(process.cwd(), 'scenarios'));
