@@ -70,6 +70,15 @@ export function djordjevicSarkar(er: number, lossTangent: number, fRef: number, 
   return { epsInf, deltaEps: slope * Math.log10(f2 / f1), f1, f2 };
 }
 
+/**
+ * The largest loss tangent the model can carry at fRef for a given εr with ε∞ ≥ 1 (a larger one
+ * would need ε∞ < 1 between the corners).
+ */
+export function dsMaxLossTangent(er: number, fRef: number, f1 = 1e3, f2 = 1e12): number {
+  const L = logTerm({ epsInf: 0, deltaEps: 0, f1, f2 }, 2 * Math.PI * fRef);
+  return L.re > 0 ? ((er - 1) * -L.im) / (L.re * er) : Infinity;
+}
+
 export interface DebyeTerm {
   /** Relaxation strength Δε_k ≥ 0. */
   deltaEps: number;

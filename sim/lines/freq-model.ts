@@ -27,7 +27,7 @@ import {
   twoWireLossFactor,
 } from './conductor.js';
 import { analyzeCoax, type CoaxAnalysis, type CoaxGeometry } from './coax.js';
-import { debyeFit, djordjevicSarkar, dsEpsilon, type DebyeFit, type DSModel } from './dielectric.js';
+import { debyeFit, djordjevicSarkar, dsEpsilon, dsMaxLossTangent, type DebyeFit, type DSModel } from './dielectric.js';
 import { analyzeMicrostrip, type MicrostripAnalysis, type MicrostripGeometry } from './microstrip.js';
 import { internalImpedance, skinFit, type Roughness, type SkinFit } from './skin-fit.js';
 import { analyzeStripline, type StriplineAnalysis, type StriplineGeometry } from './stripline.js';
@@ -527,6 +527,10 @@ export function fromDatasheet(d: DatasheetSpec): DatasheetLine {
   }
   const start: Record<Param, number> = { rdc: fixedRdc, skinK: 0, lossTangent: 0 };
   if (best) free.forEach((p, j) => (start[p] = best!.x[j] > 0 ? best!.x[j] : p === 'rdc' ? fixedRdc : 0));
+  // Causality caps the loss tangent: the DS model needs ε∞ ≥ 1 (matters for air-like foam cables).
+  const tanCap = dsMaxLossTangent(er, at, d.f1, d.f2) * (1 - 1e-6);
+  const capped = (p: Record<Param, number>) => ({ ...p, lossTangent: Math.min(p.lossTangent, tanCap) });
+  Object.assign(start, capped(start));
   // With enough points every free parameter is refined (the linear model's additive R_dc differs
   // from the exact blended form, so a parameter it drops may come back); otherwise only the subset.
   const fitted: Param[] = points.length >= free.length ? free : best ? best.subset : [];
@@ -550,7 +554,8 @@ export function fromDatasheet(d: DatasheetSpec): DatasheetLine {
     const scale = fitted.map((q) => Math.max(p[q], 1e-3 * typical[q]));
     const J = r.map(() => new Array<number>(fitted.length).fill(0));
     fitted.forEach((q, j) => {
-      const h = 1e-6 * scale[j];
+      let h = 1e-6 * scale[j];
+      if (q === 'lossTangent' && p[q] + h > tanCap) h = -h;
       const rp = resid({ ...p, [q]: p[q] + h });
       rp.forEach((v, i) => (J[i][j] = ((v - r[i]) / h) * scale[j]));
     });
@@ -568,6 +573,7 @@ export function fromDatasheet(d: DatasheetSpec): DatasheetLine {
     const step = leastSquares(rows, rhsGN);
     const trial = { ...p };
     fitted.forEach((q, j) => (trial[q] = Math.max(0, p[q] + step[j] * scale[j])));
+    trial.lossTangent = Math.min(trial.lossTangent, tanCap);
     const rt = resid(trial);
     if (cost(rt) < cost(r)) {
       const gain = cost(r) - cost(rt);
@@ -590,6 +596,11 @@ export function fromDatasheet(d: DatasheetSpec): DatasheetLine {
   }));
   const maxRelError = Math.max(...pts.map((q) => Math.abs(q.relError)));
   const rmsRelError = Math.sqrt(pts.reduce((s, q) => s + q.relError * q.relError, 0) / pts.length);
+  if (p.lossTangent >= tanCap * (1 - 1e-6)) {
+    warnings.push(
+      `datasheet line: the fitted loss tangent hit its causal limit ${tanCap.toExponential(2)} for ε′ = ${er.toFixed(3)} (a larger one would need ε∞ < 1)`,
+    );
+  }
   if (maxRelError > 0.05) {
     warnings.push(`datasheet line: the attenuation fit misses a given point by ${(maxRelError * 100).toFixed(1)} % (rms ${(rmsRelError * 100).toFixed(1)} %)`);
   }

@@ -162,6 +162,13 @@ describe('FreqLine from a datasheet', () => {
     expect(fixed.fit.fitted).not.toContain('rdc');
   });
 
+  it('caps the loss tangent at its causal limit for a nearly air-filled cable, with a warning', () => {
+    // v = 0.95c: ε′ = 1.108; all of a steep loss-vs-frequency curve would need tanδ above the cap.
+    const d = fromDatasheet({ z0: 50, velocity: 0.95 * C0, attenuation: [{ at: 1e9, loss: 10 }, { at: 4e9, loss: 40 }] });
+    expect(d.warnings.join()).toMatch(/causal limit/);
+    expect(d.line.dielectric!.model.epsInf).toBeGreaterThanOrEqual(1);
+  });
+
   it('rejects bad input', () => {
     expect(() => fromDatasheet({ z0: 50 })).toThrow(/velocity/);
     expect(() => fromDatasheet({ z0: 50, velocity: 2 * C0 })).toThrow(/exceeds/);
