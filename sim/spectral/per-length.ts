@@ -1,11 +1,26 @@
 // Per-unit-length series impedance Z'(s) and shunt admittance Y'(s) of a line item, evaluated at a
 // complex frequency s = σ + jω (the Laplace variable; s = jω on the frequency axis). The spectral
-// solver evaluates every line here and nowhere else, so a new line model only has to be added in
-// this one function.
+// solver evaluates every line here and nowhere else.
 //
-// Constant model (LineRLGC): Z'(s) = R' + s·L', Y'(s) = G' + s·C' — the telegrapher equations'
-// per-unit-length impedance and admittance (Pozar, Microwave Engineering, ch. 2, with jω → s).
-import type { LineRLGC } from '../model.js';
+// Three descriptions, in order of precedence:
+//  1. `wideband` (a FreqLine, sim/lines/freq-model.ts): the exact frequency-dependent model the
+//     time-domain realisation is fitted to — so the cross-check measures the fit error too.
+//       Z'(s) = s·L∞ + √(R_dc² + K²·s)·K_r(ω),   Y'(s) = G_dc + s·[C∞ + c_ε(ε_DS(s) − ε∞)]
+//     On the jω axis (σ = 0) this is exactly freq-model's zPerLength / yPerLength. For σ > 0 it is
+//     their analytic continuation, evaluated with the same primitives: √(R_dc² + K²(σ + jω)) is the
+//     internal impedance of a conductor with R_dc² replaced by R_dc² + K²σ, and the Djordjevic–Sarkar
+//     term log10((ω2 + s)/(ω1 + s)) is the model's own term with both corners moved up by σ (same
+//     slope). The Hammerstad roughness factor K_r has no analytic form; it is taken at ω = Im s
+//     (it only departs from 1 where δ ≲ Δ, at frequencies far above σ).
+//  2. Auxiliary terms (`series`, `shunt`, model.ts): the rational model
+//       Z'(s) = R' + sL' + Σ R_k·sτ_k/(1 + sτ_k),   Y'(s) = G' + sC' + Σ C_k·s/(1 + sτ_k).
+//  3. The constant model: Z'(s) = R' + s·L', Y'(s) = G' + s·C' (the telegrapher equations;
+//     Pozar, Microwave Engineering, ch. 2, with jω → s).
+// Every model is real for real s, so Z'(s̄) = conj Z'(s); a negative ω is evaluated that way.
+import { internalImpedance } from '../lines/skin-fit.js';
+import { dsEpsilon } from '../lines/dielectric.js';
+import { yPerLength, zPerLength, type FreqLine } from '../lines/freq-model.js';
+import type { AuxTerm, LineRLGC } from '../model.js';
 
 export interface Complex {
   re: number;
@@ -21,11 +36,53 @@ export interface PerLength {
 
 /**
  * Z'(s) and Y'(s) of `line` at the complex frequency `s` (rad/s; `{ re: 0, im: ω }` on the jω axis).
- * The spectral solver calls it at s = σ + jω with a small damping σ > 0 (numerical Laplace transform).
+ * The spectral solver calls it at s = σ + jω with a small damping σ > 0 (numerical Laplace transform),
+ * and at s = 0 for the DC operating point.
  */
 export function perLength(line: LineRLGC, s: Complex): PerLength {
-  return {
-    z: { re: line.r + s.re * line.l, im: s.im * line.l },
-    y: { re: line.g + s.re * line.c, im: s.im * line.c },
-  };
+  if (s.im < 0) {
+    const p = perLength(line, { re: s.re, im: -s.im });
+    return { z: { re: p.z.re, im: -p.z.im }, y: { re: p.y.re, im: -p.y.im } };
+  }
+  if (line.wideband) return widebandPerLength(line.wideband, s);
+  const z = { re: line.r + s.re * line.l, im: s.im * line.l };
+  const y = { re: line.g + s.re * line.c, im: s.im * line.c };
+  if (line.series) for (const t of line.series) addPole(z, t.value * t.tau, t, s); // R_k·sτ/(1 + sτ)
+  if (line.shunt) for (const t of line.shunt) addPole(y, t.value, t, s); // C_k·s/(1 + sτ)
+  return { z, y };
+}
+
+/** acc += a·s/(1 + sτ). */
+function addPole(acc: Complex, a: number, t: AuxTerm, s: Complex): void {
+  const dr = 1 + s.re * t.tau;
+  const di = s.im * t.tau;
+  const d = dr * dr + di * di;
+  // s/(1 + sτ) = s·conj(1 + sτ)/|1 + sτ|²
+  acc.re += (a * (s.re * dr + s.im * di)) / d;
+  acc.im += (a * (s.im * dr - s.re * di)) / d;
+}
+
+/** Z'(s), Y'(s) of the exact frequency-dependent model (see the header). */
+export function widebandPerLength(w: FreqLine, s: Complex): PerLength {
+  const sigma = s.re;
+  const omega = s.im;
+  if (sigma === 0) return { z: zPerLength(w, omega), y: yPerLength(w, omega) };
+  const rdc = Math.sqrt(w.rdc * w.rdc + w.skinK * w.skinK * sigma);
+  const zi = internalImpedance({ rdc, skinK: w.skinK, roughness: w.roughness }, omega);
+  const z = { re: zi.re + sigma * w.lInf, im: zi.im + omega * w.lInf };
+  let cr = w.cInf;
+  let ci = 0;
+  if (w.dielectric) {
+    const m = w.dielectric.model;
+    const slope = m.deltaEps / Math.log10(m.f2 / m.f1);
+    const shift = sigma / (2 * Math.PI);
+    const f1 = m.f1 + shift;
+    const f2 = m.f2 + shift;
+    const e = dsEpsilon({ epsInf: m.epsInf, deltaEps: slope * Math.log10(f2 / f1), f1, f2 }, omega);
+    cr += w.dielectric.cPerEps * (e.re - m.epsInf);
+    ci = w.dielectric.cPerEps * e.im;
+  }
+  // Y' = G + s·C with complex C = cr + j·ci
+  const y = { re: w.gdc + sigma * cr - omega * ci, im: omega * cr + sigma * ci };
+  return { z, y };
 }
