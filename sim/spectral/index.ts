@@ -1,7 +1,7 @@
 // Spectral (frequency-domain) solver: an independent cross-check of the time-domain engine for any
 // linear net. Chain (ABCD) matrices per frequency, DC operating point by Thevenin sweeps, time
 // response by the numerical Laplace transform (damped FFT, fft.js).
-export { perLength, type Complex, type PerLength } from './per-length.js';
+export { perLength, widebandPerLength, type Complex, type PerLength } from './per-length.js';
 export {
   chainEvaluator,
   compileChain,

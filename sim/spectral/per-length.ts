@@ -10,14 +10,22 @@
 //     their analytic continuation, evaluated with the same primitives: √(R_dc² + K²(σ + jω)) is the
 //     internal impedance of a conductor with R_dc² replaced by R_dc² + K²σ, and the Djordjevic–Sarkar
 //     term log10((ω2 + s)/(ω1 + s)) is the model's own term with both corners moved up by σ (same
-//     slope). The Hammerstad roughness factor K_r has no analytic form; it is taken at ω = Im s
-//     (it only departs from 1 where δ ≲ Δ, at frequencies far above σ).
+//     slope). The Hammerstad roughness factor K_r(ω) = 1 + (2/π)·atan(b·ω), b = 1.4·(Δ/δ)²/ω
+//     (Hammerstad & Jensen 1980), continues as K_r(s) = 1 + (2/π)·atan(−j·b·s)
+//       = 1 − (j/π)·ln((1 + b·s)/(1 − b·s)),
+//     analytic except for a branch point at s = 1/b on the positive real axis (the Hammerstad factor is
+//     not causal: that point lies in the right half-plane). For σ < 1/b (1/b ≈ 1e11 1/s for 0.5 µm
+//     copper roughness, σ is ~1e9 or less) the damped contour can be moved onto the jω axis without
+//     crossing it, so the result does not depend on σ and equals the inverse Fourier transform of the
+//     jω-axis model. b is read from conductor.ts's hammerstadRoughness itself, at a frequency where
+//     its atan argument is about 1.
 //  2. Auxiliary terms (`series`, `shunt`, model.ts): the rational model
 //       Z'(s) = R' + sL' + Σ R_k·sτ_k/(1 + sτ_k),   Y'(s) = G' + sC' + Σ C_k·s/(1 + sτ_k).
 //  3. The constant model: Z'(s) = R' + s·L', Y'(s) = G' + s·C' (the telegrapher equations;
 //     Pozar, Microwave Engineering, ch. 2, with jω → s).
 // Every model is real for real s, so Z'(s̄) = conj Z'(s); a negative ω is evaluated that way.
-import { internalImpedance } from '../lines/skin-fit.js';
+import { hammerstadRoughness } from '../lines/conductor.js';
+import { internalImpedance, type Roughness } from '../lines/skin-fit.js';
 import { dsEpsilon } from '../lines/dielectric.js';
 import { yPerLength, zPerLength, type FreqLine } from '../lines/freq-model.js';
 import type { AuxTerm, LineRLGC } from '../model.js';
@@ -68,7 +76,8 @@ export function widebandPerLength(w: FreqLine, s: Complex): PerLength {
   const omega = s.im;
   if (sigma === 0) return { z: zPerLength(w, omega), y: yPerLength(w, omega) };
   const rdc = Math.sqrt(w.rdc * w.rdc + w.skinK * w.skinK * sigma);
-  const zi = internalImpedance({ rdc, skinK: w.skinK, roughness: w.roughness }, omega);
+  let zi = internalImpedance({ rdc, skinK: w.skinK, roughness: null }, omega);
+  if (w.roughness && w.roughness.rms > 0) zi = cmul(zi, roughnessFactor(w.roughness, s));
   const z = { re: zi.re + sigma * w.lInf, im: zi.im + omega * w.lInf };
   let cr = w.cInf;
   let ci = 0;
@@ -85,4 +94,34 @@ export function widebandPerLength(w: FreqLine, s: Complex): PerLength {
   // Y' = G + s·C with complex C = cr + j·ci
   const y = { re: w.gdc + sigma * cr - omega * ci, im: omega * cr + sigma * ci };
   return { z, y };
+}
+
+function cmul(a: Complex, b: Complex): Complex {
+  return { re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re };
+}
+
+/** b in K_r(ω) = 1 + (2/π)·atan(b·ω), read off hammerstadRoughness (cached per roughness object). */
+const roughnessB = new WeakMap<Roughness, number>();
+
+function hammerstadB(r: Roughness): number {
+  let b = roughnessB.get(r);
+  if (b !== undefined) return b;
+  const at = (omega: number) => Math.tan((Math.PI / 2) * (hammerstadRoughness(omega / (2 * Math.PI), r.rms, r.conductivity, r.muR ?? 1) - 1)) / omega;
+  b = at(2 * Math.PI * 1e9);
+  b = at(1 / b); // re-read where b·ω = 1, the best-conditioned point of the atan
+  roughnessB.set(r, b);
+  return b;
+}
+
+/** Analytic continuation K_r(s) = 1 − (j/π)·ln((1 + b·s)/(1 − b·s)) of the Hammerstad factor. */
+export function roughnessFactor(r: Roughness, s: Complex): Complex {
+  const b = hammerstadB(r);
+  const nr = 1 + b * s.re;
+  const ni = b * s.im;
+  const dr = 1 - b * s.re;
+  const di = -b * s.im;
+  // ln(n/d) = ln|n|/|d| + j(arg n − arg d)
+  const lr = 0.5 * Math.log((nr * nr + ni * ni) / (dr * dr + di * di));
+  const li = Math.atan2(ni, nr) - Math.atan2(di, dr);
+  return { re: 1 + li / Math.PI, im: -lr / Math.PI };
 }

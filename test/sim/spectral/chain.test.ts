@@ -83,10 +83,26 @@ describe('perLength', () => {
     }
   });
 
-  it('is analytic off the axis (Cauchy–Riemann: ∂/∂σ = −j·∂/∂ω), so the damped transform stays causal', () => {
-    for (const s of [c(3e8, 1e8), c(3e8, 6e9)]) {
+  // Hammerstad roughness K_r(ω) = 1 + (2/π)·atan(1.4·(Δ/δ)²), (Δ/δ)² = Δ²·ωµ0σ/2 (Hammerstad &
+  // Jensen 1980; skin depth from Pozar), continued as 1 + (2/π)·atan(−j·b·s) with b = 1.4·Δ²µ0σ/2.
+  it('continues the Hammerstad roughness factor analytically', () => {
+    const b = (1.4 * 1e-6 * 1e-6 * 4e-7 * Math.PI * 5.8e7) / 2;
+    for (const s of [c(3e8, 1e7), c(3e8, 6e9), c(1e9, 2e11)]) {
+      const p = perLength(wide(rough), s);
+      const q = perLength(wide(ms), s);
+      // atan(z) = (1/2j)·ln((1 + jz)/(1 − jz)) with z = −j·b·s
+      const bs = mul(c(b), s);
+      const at = mul(c(0, -0.5), log(div(add(c(1), bs), add(c(1), mul(c(-1), bs)))));
+      const kr = add(c(1), mul(c(2 / Math.PI), at));
+      const zInt = add(q.z, mul(s, c(-ms.lInf)));
+      expect(relErr(p.z, add(mul(s, c(ms.lInf)), mul(zInt, kr)))).toBeLessThan(1e-6);
+    }
+  });
+
+  it('is analytic off the axis (Cauchy–Riemann: ∂/∂σ = −j·∂/∂ω)', () => {
+    for (const [line, s] of [[ms, c(3e8, 1e8)], [ms, c(3e8, 6e9)], [rough, c(3e8, 6e9)]] as const) {
       const h = 1e-4 * Math.hypot(s.re, s.im);
-      const at = (ds: Complex) => perLength(wide(ms), add(s, ds));
+      const at = (ds: Complex) => perLength(wide(line), add(s, ds));
       for (const k of ['z', 'y'] as const) {
         const a = at(c(h))[k];
         const b = at(c(-h))[k];

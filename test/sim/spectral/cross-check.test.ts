@@ -65,11 +65,13 @@ describe('engine cross-check on a lossy net with series and shunt parts', () => 
   });
 });
 
-describe('engine cross-check of the auxiliary loss states', () => {
-  // Frequency-dependent lines: the engine realises the exact model as R‖L sections and R–C branches
-  // (sim/realize.ts). Fed the same realised terms, the spectral solver (which evaluates them exactly as
-  // rational functions of s) must agree with the leapfrog update of those states: this isolates the
-  // time discretization from the fit. Tolerance 0.1 % of swing.
+describe('engine cross-check of frequency-dependent loss', () => {
+  // The issue's check of the time-domain loss models: a lossy microstrip (skin effect + Djordjevic–
+  // Sarkar dielectric) and a long lossy cable, engine against the spectral solver evaluating the exact
+  // wideband model (sim/lines/freq-model.ts), within 0.5 % of swing. The engine realises that model as
+  // R‖L sections and R–C branches fitted over the run's band (sim/realize.ts); fed those same terms,
+  // the spectral solver evaluates them exactly as rational functions of s, which isolates the time
+  // discretization of the auxiliary states from the fit: that part must stay within 0.25 %.
   const asLine = (f: FreqLine): LineRLGC => ({ r: f.rdc, l: f.lInf, g: f.gdc, c: f.cInf, wideband: f });
   const realised = (n: Net): Net => {
     const { net: r } = prepareRun(n);
@@ -77,20 +79,20 @@ describe('engine cross-check of the auxiliary loss states', () => {
   };
   const cases = [
     {
-      name: 'FR-4 microstrip, skin effect, roughness and Djordjevic–Sarkar dielectric, 0.3 m, open end',
-      line: asLine(fromMicrostrip({ width: 0.3e-3, height: 0.17e-3, thickness: 35e-6, er: 4.3, lossTangent: 0.02, at: 1e9, roughness: 0.5e-6 }).line),
+      name: 'FR-4 microstrip with skin effect and Djordjevic–Sarkar dielectric, 0.3 m, open end',
+      line: asLine(fromMicrostrip({ width: 0.3e-3, height: 0.17e-3, thickness: 35e-6, er: 4.3, lossTangent: 0.02, at: 1e9 }).line),
       length: 0.3,
       rise: 50e-12,
       rs: 20,
       duration: 8e-9,
     },
     {
-      name: 'datasheet coax, 10 m, open end',
+      name: 'datasheet coax (4.3, 14 and 50 dB/100 m at 10 MHz, 100 MHz, 1 GHz), 20 m, open end',
       line: asLine(fromDatasheet({ z0: 50, velocity: 0.66 * 299792458, attenuation: [{ at: 10e6, loss: 0.043 }, { at: 100e6, loss: 0.14 }, { at: 1e9, loss: 0.5 }] }).line),
-      length: 10,
+      length: 20,
       rise: 1e-9,
       rs: 25,
-      duration: 200e-9,
+      duration: 250e-9,
     },
   ];
   for (const c of cases) {
@@ -108,8 +110,9 @@ describe('engine cross-check of the auxiliary loss states', () => {
       });
       const td = simulate(n);
       expect(td.discretization.segments[0].loss?.seriesTerms).toBeGreaterThan(0);
-      const sp = spectralRun(realised(n), { dtSample: td.record.dtSample, samples: td.record.values.shape[1] });
-      for (const d of compareRecords(td.record, sp.record, 1)) expect(d.percentOfSwing, d.name).toBeLessThan(0.1);
+      const opts = { dtSample: td.record.dtSample, samples: td.record.values.shape[1] };
+      for (const d of compareRecords(td.record, spectralRun(n, opts).record, 1)) expect(d.percentOfSwing, `exact ${d.name}`).toBeLessThan(0.5);
+      for (const d of compareRecords(td.record, spectralRun(realised(n), opts).record, 1)) expect(d.percentOfSwing, `terms ${d.name}`).toBeLessThan(0.25);
     });
   }
 });
