@@ -27,6 +27,9 @@ export interface LossRealisation {
   /** Largest relative error of the realised Z′ and Y′ against the exact model over the band. */
   maxRelErrorZ: number;
   maxRelErrorY: number;
+  /** Largest relative error of the loss alone: the conductor's resistance and the dielectric's loss term. */
+  maxResistanceRelError: number;
+  maxDielectricLossRelError: number;
 }
 
 export interface Discretization {

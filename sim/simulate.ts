@@ -39,6 +39,8 @@ export function prepareRun(net: Net): { net: Net; plan: Discretization } {
         shuntTerms: fit.shunt.branches.length,
         maxRelErrorZ: fit.maxRelErrorZ,
         maxRelErrorY: fit.maxRelErrorY,
+        maxResistanceRelError: fit.skin.maxResistanceRelError,
+        maxDielectricLossRelError: fit.debye?.maxLossRelError ?? 0,
       };
     }
   }
