@@ -50,6 +50,15 @@ const LENGTH_UNITS = {
   ft: fixed(0.3048),
 } satisfies Record<string, UnitDef>;
 
+/**
+ * Copper foil thickness by weight: 1 oz of copper spread over 1 ft² is about 35 µm thick (common
+ * PCB practice; the same value as COPPER_THICKNESS_PER_OZ in sim/lines/conductor.ts).
+ */
+export const COPPER_THICKNESS_PER_OZ = 35e-6;
+
+/** Thicknesses: every length unit, and copper weight "1oz", "2oz", "0.5oz" (35 µm per oz). */
+const THICKNESS_UNITS = { ...LENGTH_UNITS, oz: fixed(COPPER_THICKNESS_PER_OZ) } satisfies Record<string, UnitDef>;
+
 /** Denominators of per-length units: "nH/m", "pF/in", "ps/mm", "dB/100m" ... */
 const PER_LENGTH: Readonly<Record<string, number>> = {
   m: 1,
@@ -90,6 +99,8 @@ export const DIMENSIONS = {
   capacitance: { noun: 'a capacitance', example: '3pF', base: 'F', units: { F: si(1) } },
   conductance: { noun: 'a conductance', example: '20mS', base: 'S', units: { S: si(1) } },
   length: { noun: 'a length', example: '3in', base: 'm', units: LENGTH_UNITS },
+  /** A conductor thickness: a length, or a copper weight ("1oz" = 35 µm, common PCB practice). */
+  thickness: { noun: 'a thickness', example: '1oz', base: 'm', units: THICKNESS_UNITS },
   resistancePerLength: {
     noun: 'a resistance per length',
     example: '0.5ohm/m',
@@ -118,6 +129,8 @@ export const DIMENSIONS = {
     base: 'dB/m',
     units: perLength({ dB: 1 }, { ...PER_LENGTH, '100m': 100, '100ft': 30.48 }, false),
   },
+  /** A plain number without unit (relative permittivity, loss tangent): "4.3", 0.02. */
+  number: { noun: 'a number', example: '4.3', base: '', units: {} },
   /** Electrical conductivity of a material (S/m), e.g. copper "5.8e7S/m". */
   conductivity: { noun: 'a conductivity', example: '5.8e7S/m', base: 'S/m', units: { 'S/m': si(1) } },
 } satisfies Record<string, DimensionSpec>;
@@ -254,7 +267,8 @@ export function parseQuantity(value: unknown, dim: Dimension, range?: Range, exa
     if (unit === undefined) {
       // A unit of some other dimension: just say what was expected. An unknown unit: list ours.
       const known = dimensionsOfUnit(m[2]).length > 0;
-      return { ok: false, expected: known ? expected : `${expected}; units: ${unitList(dim)}` };
+      const units = unitList(dim);
+      return { ok: false, expected: known || units === '' ? expected : `${expected}; units: ${units}` };
     }
     n = scale(m[1], unit.prefixExp, unit.factor) / unit.per;
   } else {

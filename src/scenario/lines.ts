@@ -12,6 +12,7 @@ import { NON_NEGATIVE, POSITIVE, SPEED_OF_LIGHT } from '../units.js';
 import type { Obj, Reader } from './read.js';
 import { toPlain, type SrcNode } from './parse.js';
 import type { Pos } from './problems.js';
+import { WIDEBAND_FORMS } from './line-geometry.js';
 
 /**
  * What a form's builder returns: L' and C' at least; R' and G' when the form determines them itself
@@ -77,6 +78,9 @@ export const LINE_FORMS: LineForm[] = [
       return l === undefined || c === undefined ? undefined : { l, c };
     },
   },
+  // Geometry (microstrip, stripline, coax, twoWire) and datasheet forms with frequency-dependent
+  // loss: see line-geometry.ts.
+  ...WIDEBAND_FORMS,
 ];
 
 /** Every key any form (or the loss keys) knows, for unknown-key checks and suggestions. */

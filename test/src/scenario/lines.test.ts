@@ -153,7 +153,7 @@ describe('the form table is open for new forms', () => {
   });
 
   it('allLineKeys lists every key of every form', () => {
-    expect(allLineKeys().sort()).toEqual(['c', 'delay', 'g', 'l', 'r', 'velocity', 'z0']);
+    expect(allLineKeys().sort()).toEqual(['attenuation', 'c', 'coax', 'delay', 'g', 'l', 'microstrip', 'r', 'rdc', 'stripline', 'twoWire', 'velocity', 'z0']);
     expect(allLineKeys(forms)).toContain('er');
   });
 });
