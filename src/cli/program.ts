@@ -3,6 +3,7 @@
 // registers itself here.
 import { Command, CommanderError } from 'commander';
 import { toolInfo } from '../output/tool.js';
+import { registerLineCommand } from './commands/line.js';
 import { registerRunCommand } from './commands/run.js';
 import type { CliContext } from './context.js';
 import { EXIT, type ExitCode } from './exit.js';
@@ -23,6 +24,7 @@ export function createProgram(ctx: CliContext): Command {
       writeErr: (s) => ctx.io.err(s),
     });
   registerRunCommand(program, ctx);
+  registerLineCommand(program, ctx);
   return program;
 }
 
