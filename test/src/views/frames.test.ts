@@ -1,0 +1,87 @@
+// Animation frames: which instants are shown, the shared voltage axis, file names, and the images.
+import ndarray from 'ndarray';
+import { PNG } from 'pngjs';
+import { describe, expect, it } from 'vitest';
+import type { RouteMapRecord } from '../../../sim/result.js';
+import { simulate } from '../../../sim/simulate.js';
+import { FRAME_FILE_PATTERN, frameFileName, frameRows, frameVoltageDomain, renderFrames, routeMarks } from '../../../src/views/frames.js';
+import { lineOf, net, part, stepSignal } from '../../support/nets.js';
+
+describe('frame instants', () => {
+  it('spread evenly from the first row to the last', () => {
+    expect(frameRows(901, 4)).toEqual([0, 300, 600, 900]);
+    expect(frameRows(10, 1)).toEqual([9]);
+    const rows = frameRows(900, 60);
+    expect(rows[0]).toBe(0);
+    expect(rows[59]).toBe(899);
+    for (let i = 1; i < rows.length; i++) expect(rows[i] - rows[i - 1]).toBeGreaterThanOrEqual(15);
+  });
+
+  it('name files frame-0001.png … in playing order, widening past 9999', () => {
+    expect(frameFileName(0, 12)).toBe('frame-0001.png');
+    expect(frameFileName(11, 12)).toBe('frame-0012.png');
+    expect(frameFileName(0, 12000)).toBe('frame-00001.png');
+    expect(FRAME_FILE_PATTERN.test('frame-0007.png')).toBe(true);
+    expect(FRAME_FILE_PATTERN.test('frames.png')).toBe(false);
+  });
+});
+
+describe('frames of a matched line', () => {
+  // 1 V step through 50 Ω into a 1 m, 50 Ω line (5 ns) with a 50 Ω load: a 0.5 V wave travels to the far
+  // end and nothing reflects (Pozar, Microwave Engineering, §2.3–2.4).
+  const n = net({
+    signal: stepSignal(1, 200e-12, 0.5e-9),
+    rs: 50,
+    route: [
+      { kind: 'line', name: 'first', line: lineOf(50, 5e-9), length: 0.5 },
+      { kind: 'shunt', name: 'pad', parts: [part({ c: 1e-15 })] },
+      { kind: 'line', name: 'second', line: lineOf(50, 5e-9), length: 0.5 },
+    ],
+    receiver: [part({ r: 50 })],
+    duration: 10e-9,
+  });
+  const map = simulate(n, { routeMap: {} }).routeMap as RouteMapRecord;
+
+  it('share one voltage axis that holds every value of the run', () => {
+    const [lo, hi] = frameVoltageDomain(map);
+    let min = Infinity, max = -Infinity;
+    for (const v of map.values.data) {
+      min = Math.min(min, v);
+      max = Math.max(max, v);
+    }
+    expect(lo).toBeLessThan(min);
+    expect(hi).toBeGreaterThan(max);
+    expect(max).toBeCloseTo(0.5, 2); // the incident wave Vs·Z0/(Rs + Z0)
+  });
+
+  it('mark the joint between the segments and label the lumped part', () => {
+    const { markers, annotations } = routeMarks(map, 1);
+    expect(markers.some((m) => Math.abs(m.at - 0.5) < 1e-9 && m.label === 'pad')).toBe(true);
+    expect(annotations.map((a) => a.text)).toEqual(['first', 'second']);
+    // a segment too narrow for its name is left unlabelled
+    expect(routeMarks(map, 1, (name) => name !== 'first').annotations.map((a) => a.text)).toEqual(['second']);
+  });
+
+  it('render one PNG per frame at the requested size', async () => {
+    const pngs = await renderFrames({ title: 'Matched line', routeMap: map, count: 3, width: 640, height: 360 });
+    expect(pngs).toHaveLength(3);
+    for (const p of pngs) expect([PNG.sync.read(p).width, PNG.sync.read(p).height]).toEqual([640, 360]);
+  });
+
+  it('refuses a frame count below 1', () => {
+    expect(() => frameRows(map.values.shape[0], 0)).toThrow(RangeError);
+    expect(() => frameRows(0, 3)).toThrow(RangeError);
+  });
+});
+
+describe('routeMarks on a hand-made map', () => {
+  it('does not mark the route ends as boundaries', () => {
+    const m: RouteMapRecord = {
+      positions: Float64Array.from([0, 1]),
+      dtRow: 1e-9,
+      values: ndarray(new Float64Array(4), [2, 2]),
+      items: [{ name: 'only', kind: 'line', from: 0, to: 1 }],
+    };
+    expect(routeMarks(m, 0).markers).toEqual([]);
+  });
+});
