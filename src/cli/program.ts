@@ -5,6 +5,9 @@ import { Command, CommanderError } from 'commander';
 import { toolInfo } from '../output/tool.js';
 import { registerLineCommand } from './commands/line.js';
 import { registerRunCommand } from './commands/run.js';
+import { registerCheckCommand } from './commands/check.js';
+import { registerSweepCommand } from './commands/sweep.js';
+import { registerMergeCommand } from './commands/merge.js';
 import type { CliContext } from './context.js';
 import { EXIT, type ExitCode } from './exit.js';
 import { processIO, type CliIO } from './io.js';
@@ -25,6 +28,9 @@ export function createProgram(ctx: CliContext): Command {
     });
   registerRunCommand(program, ctx);
   registerLineCommand(program, ctx);
+  registerCheckCommand(program, ctx);
+  registerSweepCommand(program, ctx);
+  registerMergeCommand(program, ctx);
   return program;
 }
 

@@ -16,6 +16,7 @@ import { ScenarioError, type Problem } from '../scenario/problems.js';
 import { AtomicBatch } from './atomic.js';
 import { probeRows, writeCsv } from './csv.js';
 import { buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
+import { addMeasurementSections } from '../checks/summary.js';
 
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
@@ -167,6 +168,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     discretization: result.discretization,
     record: result.record,
   });
+  // Per-probe measurements and the scenario's checks (src/checks/summary.ts).
+  addMeasurementSections(summary, net, result);
   await options.extendSummary?.({ net, result, summary });
 
   options.onPhase?.('render');

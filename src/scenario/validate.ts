@@ -8,16 +8,17 @@ import { NON_NEGATIVE, POSITIVE, formatSI, parseQuantity } from '../units.js';
 import { readLine } from './lines.js';
 import { readPart, readPartList } from './parts.js';
 import { readSignal } from './signals.js';
+import { readVerification, type CheckedNet } from './checks.js';
 import { Obj, Reader } from './read.js';
 import { closest, joinKey, Problems, type Pos } from './problems.js';
 import { toPlain, type SrcNode } from './parse.js';
 
-export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run'] as const;
+export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'thresholds', 'checks'] as const;
 export const DRIVER_KEYS = ['signal', 'resistance'] as const;
 export const ITEM_KINDS = ['line', 'series', 'shunt'] as const;
 export const ITEM_KEYS = { line: ['name', 'line', 'length'], series: ['name', 'series'], shunt: ['name', 'shunt'] } as const;
 export const RECEIVER_KEYS = ['parts'] as const;
-export const PROBE_KEYS = ['name', 'at', 'position', 'side'] as const;
+export const PROBE_KEYS = ['name', 'at', 'position', 'side', 'thresholds'] as const;
 export const RUN_KEYS = ['duration', 'cellsPerRise', 'sample'] as const;
 
 /** Probe targets that are not item names. */
@@ -69,9 +70,11 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   const receiver = readReceiver(r, top);
   const probes = readProbes(r, top, route.items);
   const run = readRun(r, top);
+  // Checks and logic thresholds (checks.ts): extra fields on the Net that the engine ignores.
+  const verification = readVerification(r, top, probes?.map((p) => p.name));
 
   if (problems.count > before) return undefined;
-  const net: Net = {
+  const net: CheckedNet = {
     title: title!,
     driver: driver!,
     route: route.route!,
@@ -80,6 +83,9 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
     run: run!,
   };
   if (description !== undefined) net.description = description;
+  if (verification?.thresholds) net.thresholds = verification.thresholds;
+  if (verification?.probeThresholds) net.probeThresholds = verification.probeThresholds;
+  if (verification?.checks) net.checks = verification.checks;
   return net;
 }
 

@@ -1,0 +1,63 @@
+// Measurements and checks of one simulated scenario: every probe measured with the IEEE 181 library
+// (src/measure) against the driver's source waveform (for delays), with the probe's logic thresholds
+// and every settling band the checks ask for; then the scenario's checks evaluated.
+import type { Net } from '../../sim/model.js';
+import type { SimResult } from '../../sim/result.js';
+import { nominalLevels, signalFunction } from '../../sim/signals.js';
+import {
+  evaluateChecks,
+  measureProbe,
+  requiredSettleBands,
+  type BandSpec,
+  type CheckResult,
+  type CheckSpec,
+  type ProbeMeasurements,
+} from '../measure/index.js';
+import { probeRows } from '../output/csv.js';
+import { netChecks, netThresholds } from '../scenario/checks.js';
+
+export interface NetMeasurements {
+  /** Per probe, in probe order. */
+  measurements: Record<string, ProbeMeasurements>;
+  /** The scenario's checks, in file order. */
+  results: CheckResult[];
+}
+
+/** The driver's open-circuit source waveform at the record's sample instants (t = i·dtSample). */
+export function sourceWaveform(net: Net, dtSample: number, samples: number): Float64Array {
+  const f = signalFunction(net.driver.signal);
+  const out = new Float64Array(samples);
+  for (let i = 0; i < samples; i++) out[i] = f(i * dtSample);
+  return out;
+}
+
+function bandKey(b: BandSpec): string {
+  return 'fraction' in b ? `f${b.fraction}` : `v${b.volts}`;
+}
+
+/**
+ * Measures every probe of a result and evaluates the scenario's checks. `extraChecks` are measured
+ * for too (their settling bands), but only the scenario's own checks are evaluated into `results`.
+ */
+export function measureNet(net: Net, result: SimResult, extraChecks: readonly CheckSpec[] = []): NetMeasurements {
+  const { record } = result;
+  const rows = probeRows(record);
+  const samples = record.values.shape[1];
+  const source = sourceWaveform(net, record.dtSample, samples);
+  const sourceNominal = nominalLevels(net.driver.signal);
+  const checks = netChecks(net);
+  const all = [...checks, ...extraChecks];
+  const measurements: Record<string, ProbeMeasurements> = {};
+  record.names.forEach((name, p) => {
+    const seen = new Set<string>();
+    const bands = requiredSettleBands(all, name).filter((b) => !seen.has(bandKey(b)) && seen.add(bandKey(b)));
+    const thresholds = netThresholds(net, name);
+    measurements[name] = measureProbe(rows[p], record.dtSample, {
+      source,
+      sourceNominal,
+      settleBands: bands,
+      ...(thresholds ? { thresholds } : {}),
+    });
+  });
+  return { measurements, results: evaluateChecks(checks, measurements) };
+}

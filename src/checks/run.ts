@@ -1,0 +1,179 @@
+// `ladderwave check` as a library: run every scenario, measure its probes, evaluate its checks and
+// optionally compare with (or update) golden waveforms. One report per scenario, in argument order.
+import { mkdir } from 'node:fs/promises';
+import { simulate } from '../../sim/simulate.js';
+import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../cli/exit.js';
+import { writeFileAtomic } from '../output/atomic.js';
+import { probeRows, writeCsv } from '../output/csv.js';
+import { readScenarioFile } from '../output/run.js';
+import { netChecks } from '../scenario/checks.js';
+import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions } from './golden.js';
+import { measureNet } from './measure.js';
+
+export type Verdict = 'pass' | 'fail' | 'error';
+
+/** Exit code of `ladderwave check` when every scenario ran and at least one check failed. */
+export const CHECK_FAILED: ExitCode = 1;
+
+/** One line of the results table: a check or a golden comparison of one probe. */
+export interface CheckRow {
+  kind: 'check' | 'golden';
+  probe: string;
+  /** The metric name; "golden" for a golden comparison. */
+  metric: string;
+  limit: string;
+  measured: number | null;
+  measuredText: string;
+  pass: boolean;
+  message: string;
+}
+
+export interface ScenarioReport {
+  file: string;
+  /** null when the file could not be loaded. */
+  title: string | null;
+  sha256: string | null;
+  verdict: Verdict;
+  rows: CheckRow[];
+  /** Why the scenario could not be run (bad input, over a size limit, a bug), one message per line. */
+  error: { code: ExitCode; lines: string[] } | null;
+  /** Remarks: "no checks in this scenario", "golden file written: …". */
+  notes: string[];
+  /** Wall-clock seconds spent on this scenario. */
+  seconds: number;
+}
+
+export interface GoldenOptions extends CompareOptions {
+  dir: string;
+  /** Rewrite the golden files from this run instead of comparing. */
+  update: boolean;
+}
+
+export interface CheckRunOptions {
+  golden?: GoldenOptions;
+  /** Run even when a size limit would be exceeded. */
+  force?: boolean;
+  /** Called after each scenario (for progress output). */
+  onScenario?: (report: ScenarioReport, index: number, total: number) => void;
+}
+
+export interface CheckTotals {
+  scenarios: number;
+  checks: number;
+  passed: number;
+  failed: number;
+  /** Scenarios that could not be run. */
+  errors: number;
+  failedScenarios: number;
+}
+
+export interface CheckRunReport {
+  scenarios: ScenarioReport[];
+  totals: CheckTotals;
+  /** 0 every check passed; 1 a check failed; 2 (or 3) a scenario could not be run. */
+  exitCode: ExitCode;
+}
+
+/** Golden files are named after the scenario: two scenarios with one name would share one. */
+export function goldenNameClashes(files: readonly string[]): string[] {
+  const seen = new Map<string, string>();
+  const out: string[] = [];
+  for (const f of files) {
+    const n = scenarioBaseName(f);
+    const prev = seen.get(n);
+    if (prev !== undefined) out.push(`${prev} and ${f} would share the golden file ${n}.csv; rename one, or check them in separate runs`);
+    else seen.set(n, f);
+  }
+  return out;
+}
+
+export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}): Promise<ScenarioReport> {
+  const t0 = performance.now();
+  const report: ScenarioReport = { file, title: null, sha256: null, verdict: 'pass', rows: [], error: null, notes: [], seconds: 0 };
+  try {
+    const scenario = await readScenarioFile(file);
+    const { net } = scenario;
+    report.title = net.title;
+    report.sha256 = scenario.sha256;
+    const result = simulate(net, { force: opts.force });
+    const { results } = measureNet(net, result);
+    for (const r of results) {
+      report.rows.push({ kind: 'check', probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass, message: r.message });
+    }
+    if (netChecks(net).length === 0) report.notes.push('no checks in this scenario');
+    if (opts.golden) {
+      const g = opts.golden;
+      const path = goldenPath(g.dir, file);
+      if (g.update) {
+        await mkdir(g.dir, { recursive: true });
+        await writeFileAtomic(path, (sink) => writeCsv(result.record, sink));
+        report.notes.push(`golden file written: ${path}`);
+      } else {
+        const hint = `to create or update it on purpose run: ladderwave check ${file} --golden ${g.dir} --update-golden`;
+        let golden;
+        try {
+          golden = await readGolden(path);
+        } catch (e) {
+          if (!(e instanceof GoldenFormatError)) throw e;
+          golden = null;
+          report.rows.push({ kind: 'golden', probe: '*', metric: 'golden', limit: describeGoldenLimit(g), measured: null, measuredText: 'n/a', pass: false, message: `${e.message}; ${hint}` });
+        }
+        if (golden === undefined) {
+          report.rows.push({
+            kind: 'golden',
+            probe: '*',
+            metric: 'golden',
+            limit: describeGoldenLimit(g),
+            measured: null,
+            measuredText: 'n/a',
+            pass: false,
+            message: `no golden file ${path}; ${hint}`,
+          });
+        } else if (golden) {
+          const cmp = compareWithGolden({ names: result.record.names, dt: result.record.dtSample, rows: probeRows(result.record) }, golden, g, hint);
+          for (const c of cmp) {
+            report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: c.measuredText, pass: c.pass, message: c.message });
+          }
+        }
+      }
+    }
+    report.verdict = report.rows.every((r) => r.pass) ? 'pass' : 'fail';
+  } catch (e) {
+    const f = describeFailure(e, file);
+    report.error = { code: f.code, lines: f.lines };
+    report.verdict = 'error';
+  }
+  report.seconds = (performance.now() - t0) / 1000;
+  return report;
+}
+
+export function totalsOf(scenarios: readonly ScenarioReport[]): CheckTotals {
+  const rows = scenarios.flatMap((s) => s.rows);
+  const passed = rows.filter((r) => r.pass).length;
+  return {
+    scenarios: scenarios.length,
+    checks: rows.length,
+    passed,
+    failed: rows.length - passed,
+    errors: scenarios.filter((s) => s.verdict === 'error').length,
+    failedScenarios: scenarios.filter((s) => s.verdict === 'fail').length,
+  };
+}
+
+/** Exit code of a check run: a scenario that could not be run outweighs a failed check. */
+export function checkExitCode(scenarios: readonly ScenarioReport[]): ExitCode {
+  const errors = scenarios.filter((s) => s.error).map((s) => s.error!.code);
+  if (errors.length > 0) return worstExitCode(errors);
+  return scenarios.some((s) => s.verdict === 'fail') ? CHECK_FAILED : EXIT.ok;
+}
+
+/** Checks every scenario in turn (one at a time: each run is short and output order is stable). */
+export async function runChecks(files: readonly string[], opts: CheckRunOptions = {}): Promise<CheckRunReport> {
+  const scenarios: ScenarioReport[] = [];
+  for (let i = 0; i < files.length; i++) {
+    const r = await checkScenarioFile(files[i]!, opts);
+    scenarios.push(r);
+    opts.onScenario?.(r, i, files.length);
+  }
+  return { scenarios, totals: totalsOf(scenarios), exitCode: checkExitCode(scenarios) };
+}

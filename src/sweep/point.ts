@@ -1,0 +1,68 @@
+// One sweep point: apply its values to the scenario, validate, simulate, measure. The same function
+// runs in the main thread (--jobs 1) and in every worker, so a point's row does not depend on where
+// it ran.
+import { NetError, RunRefused, type NetProblem } from '../../sim/errors.js';
+import { simulate } from '../../sim/simulate.js';
+import { ScenarioError, type Problem } from '../scenario/problems.js';
+import { pointValues } from './columns.js';
+import { pointAssignments, pointNet, type SweepPlan } from './plan.js';
+
+/** A sweep.csv row as numbers, aligned with `plan.header` (null: an empty cell). */
+export type SweepRow = (number | null)[];
+
+export interface PointOptions {
+  force?: boolean;
+}
+
+export function evaluatePoint(plan: SweepPlan, i: number, opts: PointOptions = {}): SweepRow {
+  const net = pointNet(plan, i);
+  const result = simulate(net, { force: opts.force });
+  const pv = pointValues(net, result, plan.probes, plan.columns);
+  const row: SweepRow = [i, ...pointAssignments(plan, i).map((a) => a.value), ...pv.values];
+  if (plan.hasChecks) row.push(pv.checks?.failed ?? null, pv.checks?.margin ?? null);
+  return row;
+}
+
+/** An error as plain data, to cross from a worker to the main thread. */
+export type WireError =
+  | { kind: 'scenario'; problems: Problem[]; warnings: Problem[] }
+  | { kind: 'net'; problems: NetProblem[] }
+  | { kind: 'refused'; message: string }
+  | { kind: 'other'; name: string; message: string; stack?: string };
+
+export function toWire(e: unknown): WireError {
+  if (e instanceof ScenarioError) return { kind: 'scenario', problems: e.problems, warnings: e.warnings };
+  if (e instanceof NetError) return { kind: 'net', problems: e.problems };
+  if (e instanceof RunRefused) return { kind: 'refused', message: e.message };
+  const err = e instanceof Error ? e : new Error(String(e));
+  return { kind: 'other', name: err.name, message: err.message, stack: err.stack };
+}
+
+export function fromWire(w: WireError): Error {
+  switch (w.kind) {
+    case 'scenario':
+      return new ScenarioError(w.problems, w.warnings);
+    case 'net':
+      return new NetError(w.problems);
+    case 'refused':
+      return new RunRefused(w.message);
+    default: {
+      const e = new Error(w.message);
+      e.name = w.name;
+      if (w.stack) e.stack = w.stack;
+      return e;
+    }
+  }
+}
+
+/** The same error, its message naming the point (the error classes are kept, for the exit codes). */
+export function annotatePointError(e: unknown, label: string): Error {
+  if (e instanceof ScenarioError) return e; // its problems already name the point
+  if (e instanceof NetError) return new NetError(e.problems.map((p) => ({ path: p.path, message: `${p.message} (${label})` })));
+  if (e instanceof RunRefused) return new RunRefused(`${label}: ${e.message}`);
+  const err = e instanceof Error ? e : new Error(String(e));
+  const out = new Error(`${label}: ${err.message}`);
+  out.name = err.name;
+  out.stack = err.stack;
+  return out;
+}
