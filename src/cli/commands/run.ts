@@ -6,11 +6,14 @@ import { formatProblem } from '../../scenario/problems.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../exit.js';
 import { formatRunReport } from '../format.js';
+import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
 
 export interface RunCommandOptions {
   out?: string;
   quiet?: boolean;
   force?: boolean;
+  /** Also solve with the spectral solver and compare (crosscheck.png, summary.json "crossCheck"). */
+  crossCheck?: boolean;
 }
 
 /** The scenario's file name without its extension: `nets/clock.json` → `clock`. */
@@ -52,15 +55,19 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
   for (let i = 0; i < files.length; i++) {
     let release: (() => void) | undefined;
     try {
+      const cc = opts.crossCheck ? crossCheckRun({ force: opts.force }) : undefined;
       const report = await runScenarioFile(files[i], dirs[i], {
         force: opts.force,
+        extendSummary: cc?.extendSummary,
         onPhase: (phase) => {
           if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
         },
       });
+      const ccFile = cc ? await cc.write(dirs[i]) : undefined;
       if (!opts.quiet) {
         for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
         io.out((i > 0 ? '\n' : '') + formatRunReport(report));
+        if (cc?.result) io.out(formatCrossCheck(cc.result, ccFile));
       }
       codes.push(EXIT.ok);
     } catch (e) {
@@ -86,6 +93,7 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>); with several scenarios, one subfolder per scenario under it')
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')
+    .option('--cross-check', 'also solve the net with the independent spectral solver: print the largest difference per probe (% of swing), write crosscheck.png and a crossCheck section in summary.json')
     .action(async (files: string[], opts: RunCommandOptions) => {
       ctx.exitCode = await runCommand(files, opts, ctx);
     });

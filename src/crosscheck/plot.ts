@@ -1,0 +1,76 @@
+// crosscheck.png: the time-domain and spectral solutions of every probe on one plot (time domain
+// solid, spectral dashed, in the probe's colour), and below it their difference as a percent of
+// the swing. Reads only the two records and the comparison.
+import type { ProbeRecord } from '../../sim/result.js';
+import { drawLinePlot, encodePng, Surface, traceStyle, type LineSeries } from '../render/index.js';
+import type { CrossCheckResult } from './crosscheck.js';
+
+export const CROSSCHECK_FILE = 'crosscheck.png';
+
+function row(r: ProbeRecord, p: number): Float64Array {
+  const n = r.values.shape[1];
+  return r.values.data.subarray(p * n, (p + 1) * n);
+}
+
+/** The overlay and difference plot as PNG bytes (default 1200 × 900). */
+export async function renderCrossCheck(spec: {
+  title: string;
+  timeDomain: ProbeRecord;
+  check: CrossCheckResult;
+  width?: number;
+  height?: number;
+}): Promise<Buffer> {
+  const { timeDomain: td, check } = spec;
+  const sp = check.spectral;
+  const width = spec.width ?? 1200;
+  const height = spec.height ?? 900;
+  const surface = new Surface(width, height);
+  const overlay: LineSeries[] = [];
+  const diffs: LineSeries[] = [];
+  td.names.forEach((name, p) => {
+    const q = sp.names.indexOf(name);
+    if (q < 0) return;
+    const base = traceStyle(overlay.length / 2);
+    overlay.push({ name: `${name} (time domain)`, values: row(td, p), dx: td.dtSample, style: { color: base.color, dash: [], width: 2 } });
+    overlay.push({ name: `${name} (spectral)`, values: row(sp, q), dx: sp.dtSample, style: { color: base.color, dash: [7, 5], width: 1.5 } });
+    const a = row(td, p);
+    const b = row(sp, q);
+    const n = Math.min(a.length, b.length);
+    const d = new Float64Array(n);
+    for (let i = 0; i < n; i++) d[i] = (100 * (a[i] - b[i])) / check.swing;
+    diffs.push({ name, values: d, dx: td.dtSample, style: { color: base.color, dash: [], width: 1.5 } });
+  });
+  const worst = check.worst;
+  const top = Math.round(height * 0.58);
+  // Symmetric difference axis, to a round bound (1, 2 or 5 × 10^k) above the largest difference.
+  let peak = 0;
+  for (const s of diffs) for (const v of s.values as Float64Array) if (Number.isFinite(v)) peak = Math.max(peak, Math.abs(v));
+  const bound = roundUp(peak > 0 ? peak * 1.05 : 0.1);
+  drawLinePlot(surface, { x: 0, y: 0, w: width, h: top }, {
+    title: `${spec.title}: time domain vs spectral`,
+    subtitle: worst
+      ? `largest difference ${worst.percentOfSwing.toFixed(3)} % of the ${check.swing.toPrecision(3)} V swing, at ${worst.name}`
+      : undefined,
+    x: { label: 'Time', unit: 's' },
+    y: { label: 'Voltage', unit: 'V' },
+    series: overlay,
+    legend: 'right',
+    legendTitle: 'Probes',
+  });
+  drawLinePlot(surface, { x: 0, y: top, w: width, h: height - top }, {
+    title: 'Difference (time domain − spectral)',
+    x: { label: 'Time', unit: 's' },
+    y: { label: '% of swing', domain: [-bound, bound] },
+    series: diffs,
+    legend: 'right',
+    legendTitle: 'Probes',
+  });
+  return encodePng(surface);
+}
+
+/** The smallest 1, 2 or 5 × 10^k at or above x > 0. */
+export function roundUp(x: number): number {
+  const e = 10 ** Math.floor(Math.log10(x));
+  for (const m of [1, 2, 5, 10]) if (m * e >= x * (1 - 1e-12)) return m * e;
+  return 10 * e;
+}
