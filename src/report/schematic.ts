@@ -1,0 +1,204 @@
+// The route as a schematic strip, in inline SVG of our own: the driver (a source behind its resistance),
+// each line segment as a long box with its Z0, one-way delay and length, series parts as impedance
+// boxes in the signal path, shunt parts as branches to ground or to their rail, and the receiver's
+// parts (or an open end). Widths follow the longest label, so nothing overlaps.
+import type { LineRLGC, Net, Part, RouteItem, Signal } from '../../sim/model.js';
+import { formatSI } from '../units.js';
+import { attr, esc } from './html.js';
+
+const si = (v: number, unit: string) => formatSI(v, unit, 3);
+
+/** "R 39 Ω + L 12 nH + C 4 pF", and " to 1.25 V" for a part tied to a non-zero rail. */
+export function describePart(p: Part, withRail = true): string {
+  const bits: string[] = [];
+  if (p.r) bits.push(`R ${si(p.r, 'Ω')}`);
+  if (p.l) bits.push(`L ${si(p.l, 'H')}`);
+  if (p.c !== undefined) bits.push(`C ${si(p.c, 'F')}`);
+  const body = bits.length ? bits.join(' + ') : 'short (0 Ω)';
+  return withRail && p.rail !== 0 ? `${body} to ${si(p.rail, 'V')}` : body;
+}
+
+export function lineZ0(line: LineRLGC): number {
+  return Math.sqrt(line.l / line.c);
+}
+
+export function lineDelay(line: LineRLGC, length: number): number {
+  return length * Math.sqrt(line.l * line.c);
+}
+
+/** One line describing the driver's signal: "bits prbs7, 0 V → 3.3 V, 1 ns per bit". */
+export function describeSignal(s: Signal): string {
+  switch (s.kind) {
+    case 'step':
+      return `step ${si(s.from, 'V')} → ${si(s.to, 'V')}, rise ${si(s.rise, 's')}`;
+    case 'pulse':
+      return `pulse ${si(s.from, 'V')} → ${si(s.to, 'V')}, width ${si(s.width, 's')}`;
+    case 'clock':
+      return `clock ${si(s.low, 'V')}–${si(s.high, 'V')}, period ${si(s.period, 's')}`;
+    case 'bits':
+      return `bits ${s.patternName}, ${si(s.low, 'V')}–${si(s.high, 'V')}, ${si(s.bitTime, 's')} per bit`;
+    case 'table':
+      return `table of ${s.points.length} points`;
+  }
+}
+
+interface Block {
+  width: number;
+  /** SVG for the block, drawn with its left edge at x = 0. */
+  svg: string;
+}
+
+const Y = 56; // the signal line
+const FONT = 12;
+const CHAR = 7.2; // generous average advance of a 12 px sans-serif character
+const textWidth = (s: string) => s.length * CHAR;
+const STROKE = '#3d4656';
+
+function text(x: number, y: number, s: string, opts: { bold?: boolean; anchor?: 'start' | 'middle' | 'end'; muted?: boolean } = {}): string {
+  return `<text x="${x}" y="${y}" text-anchor="${opts.anchor ?? 'middle'}"${opts.bold ? ' font-weight="600"' : ''}${
+    opts.muted ? ' class="muted"' : ''
+  }>${esc(s)}</text>`;
+}
+
+function wire(x0: number, x1: number): string {
+  return `<line x1="${x0}" y1="${Y}" x2="${x1}" y2="${Y}" stroke="${STROKE}" stroke-width="2"/>`;
+}
+
+function labels(cx: number, y: number, lines: string[]): string {
+  return lines.map((l, i) => text(cx, y + i * (FONT + 4), l, { muted: i > 0 })).join('');
+}
+
+function widthFor(lines: string[], min: number): number {
+  return Math.ceil(Math.max(min, ...lines.map(textWidth)) + 24);
+}
+
+/** A ground symbol with its top at (x, y), or a rail label when the part goes to a non-zero rail. */
+function railEnd(x: number, y: number, rail: number): string {
+  if (rail !== 0) {
+    return `<line x1="${x - 8}" y1="${y}" x2="${x + 8}" y2="${y}" stroke="${STROKE}" stroke-width="2"/>` + text(x, y + 14, si(rail, 'V'), { muted: true });
+  }
+  return [0, 1, 2]
+    .map((k) => `<line x1="${x - 9 + 3 * k}" y1="${y + 4 * k}" x2="${x + 9 - 3 * k}" y2="${y + 4 * k}" stroke="${STROKE}" stroke-width="2"/>`)
+    .join('');
+}
+
+/** Parallel branches from the signal line down through an impedance box to their rails, centred on cx. */
+function branches(cx: number, parts: Part[]): { svg: string; width: number } {
+  const n = Math.max(1, parts.length);
+  const pitch = 30;
+  const x0 = cx - ((n - 1) * pitch) / 2;
+  let svg = '';
+  parts.forEach((p, i) => {
+    const x = x0 + i * pitch;
+    svg += `<line x1="${x}" y1="${Y}" x2="${x}" y2="${Y + 70}" stroke="${STROKE}" stroke-width="2"/>`;
+    svg += `<rect x="${x - 7}" y="${Y + 22}" width="14" height="28" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>`;
+    svg += railEnd(x, Y + 70, p.rail);
+  });
+  if (parts.length > 1) svg += `<line x1="${x0}" y1="${Y}" x2="${x0 + (n - 1) * pitch}" y2="${Y}" stroke="${STROKE}" stroke-width="2"/>`;
+  svg += `<circle cx="${cx}" cy="${Y}" r="3.5" fill="${STROKE}"/>`;
+  return { svg, width: (n - 1) * pitch + 20 };
+}
+
+function driverBlock(net: Net): Block {
+  const lines = ['driver', `Rs ${si(net.driver.resistance, 'Ω')}`, describeSignal(net.driver.signal)];
+  const w = widthFor(lines, 130);
+  const cx = 26;
+  const svg =
+    `<circle cx="${cx}" cy="${Y}" r="15" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` +
+    `<polyline points="${cx - 8},${Y + 5} ${cx - 2},${Y + 5} ${cx + 2},${Y - 5} ${cx + 8},${Y - 5}" fill="none" stroke="${STROKE}" stroke-width="1.6"/>` +
+    `<line x1="${cx}" y1="${Y + 15}" x2="${cx}" y2="${Y + 30}" stroke="${STROKE}" stroke-width="2"/>` +
+    railEnd(cx, Y + 30, 0) +
+    wire(cx + 15, cx + 30) +
+    `<rect x="${cx + 30}" y="${Y - 7}" width="30" height="14" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` +
+    wire(cx + 60, w) +
+    lines.map((l, i) => text(4, Y + 58 + i * (FONT + 4), l, { anchor: 'start', muted: i > 0 })).join('');
+  return { width: w, svg };
+}
+
+function lineBlock(item: Extract<RouteItem, { kind: 'line' }>): Block {
+  const { line } = item;
+  const details = [`Z0 ${si(lineZ0(line), 'Ω')}`, `TD ${si(lineDelay(line, item.length), 's')} · ${si(item.length, 'm')}`];
+  if (line.r) details.push(`R′ ${si(line.r, 'Ω/m')}`);
+  if (line.series?.length || line.shunt?.length || line.wideband) details.push('frequency-dependent loss');
+  const w = widthFor([item.name, ...details], 150);
+  const svg =
+    wire(0, 10) +
+    `<rect x="10" y="${Y - 9}" width="${w - 20}" height="18" rx="9" fill="#e8f1f8" stroke="#0072B2" stroke-width="2"/>` +
+    wire(w - 10, w) +
+    text(w / 2, Y - 16, item.name, { bold: true }) +
+    labels(w / 2, Y + 28, details);
+  return { width: w, svg };
+}
+
+function seriesBlock(item: Extract<RouteItem, { kind: 'series' }>): Block {
+  const detail = describePart(item.part, false);
+  const w = widthFor([item.name, detail], 80);
+  const svg =
+    wire(0, w / 2 - 20) +
+    `<rect x="${w / 2 - 20}" y="${Y - 8}" width="40" height="16" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` +
+    wire(w / 2 + 20, w) +
+    text(w / 2, Y - 16, item.name, { bold: true }) +
+    labels(w / 2, Y + 28, ['series', detail]);
+  return { width: w, svg };
+}
+
+function shuntBlock(item: Extract<RouteItem, { kind: 'shunt' }>): Block {
+  const details = item.parts.map((p) => describePart(p));
+  const b = branches(0, item.parts);
+  const w = Math.max(widthFor([item.name, ...details], 70), b.width + 24);
+  const svg =
+    wire(0, w) +
+    `<g transform="translate(${w / 2},0)">${b.svg}</g>` +
+    text(w / 2, Y - 16, item.name, { bold: true }) +
+    labels(w / 2, Y + 104, ['shunt', ...details]);
+  return { width: w, svg };
+}
+
+function receiverBlock(parts: Part[]): Block {
+  if (parts.length === 0) {
+    const w = widthFor(['receiver', 'open end'], 70);
+    return {
+      width: w,
+      svg: wire(0, 24) + `<circle cx="28" cy="${Y}" r="4" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` + labels(w / 2, Y + 28, ['receiver', 'open end']),
+    };
+  }
+  const details = parts.map((p) => describePart(p));
+  const b = branches(0, parts);
+  const w = Math.max(widthFor(['receiver', ...details], 80), b.width + 24);
+  const svg = wire(0, w / 2) + `<g transform="translate(${w / 2},0)">${b.svg}</g>` + labels(w / 2, Y + 104, ['receiver', ...details]);
+  return { width: w, svg };
+}
+
+function blockFor(item: RouteItem): Block {
+  switch (item.kind) {
+    case 'line':
+      return lineBlock(item);
+    case 'series':
+      return seriesBlock(item);
+    case 'shunt':
+      return shuntBlock(item);
+  }
+}
+
+/** The route strip as an <svg> element (natural size; the page scrolls it sideways when it is wide). */
+export function routeSvg(net: Net): string {
+  const blocks = [driverBlock(net), ...net.route.map(blockFor), receiverBlock(net.receiver)];
+  const rows = Math.max(
+    3,
+    ...net.route.map((i) => (i.kind === 'shunt' ? 1 + i.parts.length : i.kind === 'line' ? 3 : 2)),
+    1 + net.receiver.length,
+  );
+  const height = Y + 104 + rows * (FONT + 4) + 8;
+  let x = 8;
+  let body = '';
+  for (const b of blocks) {
+    body += `<g transform="translate(${x},0)">${b.svg}</g>`;
+    x += b.width;
+  }
+  const width = Math.ceil(x + 8);
+  const title = `Route of ${net.title || 'the scenario'}: driver, ${net.route.length} route item${net.route.length === 1 ? '' : 's'}, receiver`;
+  return (
+    `<svg xmlns="http://www.w3.org/2000/svg" class="route" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" role="img" aria-label="${attr(title)}">` +
+    `<title>${esc(title)}</title>${body}</svg>`
+  );
+}

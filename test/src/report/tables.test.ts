@@ -1,0 +1,73 @@
+// The report's tables read summary.json: every number cell names its path and value, and its text is
+// that value with an SI prefix (BIPM, The International System of Units, 9th ed., table 7).
+import { describe, expect, it } from 'vitest';
+import { at, checksTable, formatCell, measurementTable, type ReportSummary } from '../../../src/report/tables.js';
+
+function cells(html: string): { path: string; value: string; text: string }[] {
+  return [...html.matchAll(/data-path="([^"]*)" data-value="([^"]*)">([^<]*)</g)].map((m) => ({ path: m[1], value: m[2], text: m[3] }));
+}
+
+describe('measurement table', () => {
+  it('without a measurement section: min, max, final and the 50 % crossing from "probes"', () => {
+    const summary: ReportSummary = {
+      probes: { rx: { min: -0.0123, max: 3.456, final: 3.3, crossing50: { time: 1.2345e-9, level: 1.65 } } },
+    };
+    const t = measurementTable(summary);
+    expect(t.source).toBe('probes');
+    const c = cells(t.html);
+    expect(c.map((x) => x.path)).toEqual(['probes.rx.min', 'probes.rx.max', 'probes.rx.final', 'probes.rx.crossing50.time']);
+    expect(c.map((x) => x.text)).toEqual(['-12.3 mV', '3.456 V', '3.3 V', '1.234 ns']);
+    for (const x of c) expect(Number(x.value)).toBe(at(summary, x.path.split('.')));
+  });
+
+  it('with measurements: the worst value over the edges, pointing at the edge it came from', () => {
+    const edge = (direction: string, d: number, ov: number) => ({ direction, duration1090: d, overshootPct: ov, undershootPct: null, ringbackV: null, settling: [] });
+    const summary: ReportSummary = {
+      measurements: {
+        rx: {
+          levels: { low: 0, high: 3.3 },
+          edges: [edge('rising', 1e-9, 4), edge('falling', 2e-9, 12.5), edge('rising', 1.5e-9, 3)],
+          delays: [{ delay50: 1e-9 }, { delay50: 1.1e-9 }],
+          min: -0.1,
+          max: 3.7,
+          final: 3.3,
+        },
+      },
+    };
+    const c = cells(measurementTable(summary).html);
+    const byPath = Object.fromEntries(c.map((x) => [x.path, x.text]));
+    expect(byPath['measurements.rx.edges.2.duration1090']).toBe('1.5 ns'); // slowest rising edge
+    expect(byPath['measurements.rx.edges.1.duration1090']).toBe('2 ns'); // the falling edge
+    expect(byPath['measurements.rx.edges.1.overshootPct']).toBe('12.5 %');
+    expect(byPath['measurements.rx.delays.1.delay50']).toBe('1.1 ns');
+  });
+
+  it('shows a missing value as a dash, and whole counts exactly', () => {
+    expect(formatCell(null, 'V')).toBe('—');
+    expect(formatCell(123457, '')).toBe('123457');
+  });
+});
+
+describe('checks table', () => {
+  it('says PASS and FAIL in words and counts them', () => {
+    const summary: ReportSummary = {
+      checks: {
+        passed: 1,
+        failed: 1,
+        results: [
+          { probe: 'rx', metric: 'overshoot', limit: 'max 10 %', measuredText: '4 %', pass: true, message: 'ok' },
+          { probe: 'rx', metric: 'max', limit: 'max 0.1 V', measuredText: '3.7 V', pass: false, message: '<too high>' },
+        ],
+      },
+    };
+    const t = checksTable(summary)!;
+    expect([t.passed, t.failed]).toEqual([1, 1]);
+    expect(t.html).toContain('>PASS<');
+    expect(t.html).toContain('>FAIL<');
+    expect(t.html).toContain('&lt;too high&gt;');
+  });
+
+  it('is absent without checks', () => {
+    expect(checksTable({})).toBeNull();
+  });
+});
