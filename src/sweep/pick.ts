@@ -155,7 +155,7 @@ function splitRef(text: string): { probe?: string; name: string; nameOffset: num
   if (m && /[%vV]\s*$/.test(m[2]!)) {
     body = m[1]!;
     band = m[2]!;
-    bandOffset = m[1]!.length + 1;
+    bandOffset = m[1]!.length;
   }
   // The probe is everything before the last "." outside quotes.
   let inQ = false;
