@@ -82,13 +82,16 @@ export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpe
  * is advanced from the old voltages at n and n+1, then interior node n from the new currents on both sides.
  */
 function advanceSegment(v: Float64Array, i: Float64Array, start: number, end: number, a: number, b: number, c: number, d: number): void {
-  let left = a * i[start + 1] + b * (v[start] - v[start + 1]);
+  let vn = v[start + 1]; // old voltages are carried in registers: each is read once
+  let left = a * i[start + 1] + b * (v[start] - vn);
   i[start + 1] = left;
   for (let n = start + 1; n < end; n++) {
-    const right = a * i[n + 1] + b * (v[n] - v[n + 1]);
+    const vNext = v[n + 1];
+    const right = a * i[n + 1] + b * (vn - vNext);
     i[n + 1] = right;
-    v[n] = c * v[n] + d * (left - right);
+    v[n] = c * vn + d * (left - right);
     left = right;
+    vn = vNext;
   }
 }
 
