@@ -155,7 +155,10 @@ function readCheck(r: Reader, node: SrcNode, path: string, probes: readonly stri
         l = undefined;
       }
     }
-    if (!l || (metric !== undefined && !METRICS[metric as keyof typeof METRICS].units.includes(l.unit))) {
+    // A plain number is in SI base units, as for scenario quantities, when the metric has one unit.
+    const units = metric !== undefined ? METRICS[metric as keyof typeof METRICS].units : undefined;
+    if (l && l.unit === 'count' && units && !units.includes('count') && units.length === 1) l = { ...l, unit: units[0]! };
+    if (!l || (units !== undefined && !units.includes(l.unit))) {
       return r.fail(o.keyPath(key), n, limitPhrase(metric ?? ''), o.pos);
     }
     return l;
