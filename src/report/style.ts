@@ -20,9 +20,9 @@ svg.route text.muted { fill: var(--muted); }
 figure { margin: 18px 0 26px; }
 figure img { display: block; max-width: 100%; height: auto; border: 1px solid var(--rule); border-radius: 4px; }
 figcaption { color: var(--muted); font-size: 13px; margin-top: 6px; }
-table { border-collapse: collapse; margin: 8px 0 14px; font-size: 14px; }
-caption { caption-side: bottom; text-align: left; color: var(--muted); font-size: 12.5px; padding-top: 6px; }
-th, td { padding: 5px 10px; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
+table { border-collapse: collapse; margin: 8px 0 14px; font-size: 13.5px; }
+caption { caption-side: bottom; text-align: left; color: var(--muted); font-size: 12.5px; padding-top: 6px; max-width: 100ch; }
+th, td { padding: 5px 9px; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
 thead th { border-bottom: 2px solid #c9ced6; font-weight: 600; white-space: nowrap; }
 tbody th { font-weight: 600; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }

@@ -144,7 +144,7 @@ export function measurementTable(summary: ReportSummary): { html: string; source
   const section = measurementSection(summary);
   if (section) {
     const prefix = section.key.split('.');
-    const head = ['Probe', 'Low', 'High', 'Rise 10–90 %', 'Fall 10–90 %', 'Overshoot', 'Undershoot', 'Ringback', 'Settling', 'Delay (50 %)', 'Min', 'Max', 'Final'];
+    const head = ['Probe', 'Low', 'High', 'Rise', 'Fall', 'Overshoot', 'Undershoot', 'Ringback', 'Settling', 'Delay', 'Min', 'Max', 'Final'];
     const rows = Object.entries(section.probes).map(([name, m]) => {
       const base = [...prefix, name];
       const edges = (m.edges as EdgeLike[]) ?? [];
@@ -165,7 +165,13 @@ export function measurementTable(summary: ReportSummary): { html: string; source
       ];
     });
     return {
-      html: renderTable('measurements', head, rows, 'Worst value over all edges of each probe (IEEE 181 definitions; see docs/measurements.md).'),
+      html: renderTable(
+        'measurements',
+        head,
+        rows,
+        'Worst value over all edges of each probe. Low and high: state levels; rise and fall: 10–90 % times; overshoot and undershoot: % of the swing; ' +
+          'settling: from the 50 % instant into the first settling band; delay: driver 50 % to probe 50 % (IEEE 181 definitions; see docs/measurements.md).',
+      ),
       source: 'measurements',
     };
   }
@@ -199,7 +205,9 @@ export function eyeTable(summary: ReportSummary): string | null {
     row('Windows folded', ['eye', 'windows'], ''),
   ];
   const probe = at(summary, ['eye', 'probe']);
-  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).`);
+  const windows = at(summary, ['eye', 'windows']);
+  const short = windows === 0 ? ' The run is shorter than one two-UI window at the probe; `ladderwave eye` runs the whole pattern.' : '';
+  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).${short}`);
 }
 
 // ---------------------------------------------------------------- checks

@@ -27,7 +27,12 @@ const MARK = OKABE_ITO.vermillion;
 const si = (v: number, unit: string) => formatSi(v, unit);
 
 function subtitleOf(probe: string, eye: EyeMeasurement): string {
-  const what = eye.signal === 'clock' ? 'clock' : `${eye.pattern}`;
+  const what =
+    eye.signal === 'clock'
+      ? 'clock'
+      : /^prbs\d+$/i.test(eye.pattern)
+        ? eye.pattern.toUpperCase().replace('PRBS', 'PRBS-')
+        : `${eye.patternLength}-bit pattern`;
   const head = `Probe ${probe} · ${what}, UI ${si(eye.ui, 's')} · ${eye.windows} window${eye.windows === 1 ? '' : 's'} of 2 UI`;
   if (eye.eyeHeight === null || eye.eyeWidth === null) return head;
   return eye.open

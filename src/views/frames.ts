@@ -5,7 +5,7 @@ import type { RouteMapRecord } from '../../sim/result.js';
 import { drawLinePlot, encodePng, formatSi, padDomain, Surface, THEME, type Annotation, type Marker } from '../render/index.js';
 
 export interface FramesSpec {
-  /** The scenario's title; the frame's time is appended. */
+  /** The scenario's title; the frame's time goes before it. */
   title: string;
   routeMap: RouteMapRecord;
   /** Number of frames (≥ 1). */
@@ -97,7 +97,8 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   const fits = (name: string, from: number, to: number) => surface.measureText(name, 12).width + 16 <= ((to - from) / span) * plotW;
   const { markers, annotations } = routeMarks(map, yTop, fits);
   drawLinePlot(surface, { x: 0, y: 0, w: surface.width, h: surface.height }, {
-    title: `${spec.title} — t = ${formatSi(row * map.dtRow, 's')}`,
+    // the time leads, so a long scenario title is what gets shortened
+    title: `t = ${formatSi(row * map.dtRow, 's')} · ${spec.title}`,
     subtitle: `Voltage along the route, driver at 0 m · frame ${index + 1} of ${spec.count}`,
     x: { label: 'Distance from the driver', unit: 'm', domain: end > 0 ? [0, end] : [0, 1] },
     y: { label: 'Voltage', unit: 'V', domain: yDomain },
