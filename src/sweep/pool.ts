@@ -1,6 +1,7 @@
-// Sweep points across CPU cores with worker_threads. Points go out one at a time to whichever worker
-// is free; each row is stored under its point number, so the result does not depend on the number of
-// workers or on which finished first (identical to a serial run).
+// Sweep points across CPU cores with worker_threads. Points go out one at a time to whichever thread
+// is free (the main thread computes points too); each row is stored under its point number, so the
+// result does not depend on the number of threads or on which finished first (identical to a serial
+// run).
 //
 // Workers run built JavaScript: from dist/, this module starts dist/src/sweep/worker.js. When this
 // module itself runs from TypeScript source (under vitest, or `node --import tsx src/cli/main.ts`),
@@ -14,8 +15,16 @@ import { annotatePointError, evaluatePoint, fromWire, type PointOptions, type Sw
 import { describeAssignments, pointAssignments, type SweepPlan } from './plan.js';
 
 export interface RunPointsOptions extends PointOptions {
-  /** Worker threads; default os.availableParallelism(). 1 runs in this thread. */
+  /**
+   * Threads computing points; default os.availableParallelism(). 1 runs in this thread only; N > 1
+   * starts N − 1 worker threads and this thread computes points as well.
+   */
   jobs?: number;
+  /**
+   * With jobs > 1, whether this thread computes points too (default true). false: `jobs` worker
+   * threads do all the work (tests use it to be sure the workers computed the points).
+   */
+  useMainThread?: boolean;
   /** Called after each point with the number done so far. */
   onProgress?: (done: number, total: number) => void;
 }
@@ -68,6 +77,8 @@ export async function runPoints(plan: SweepPlan, indices: readonly number[], opt
     }
     return rows;
   }
+  // jobs − 1 worker threads, and this thread computes points too (between points it yields to the
+  // event loop so the workers' results are taken in): no core idles while the workers start.
   return new Promise<SweepRow[]>((resolve, reject) => {
     const rows = new Map<number, SweepRow>();
     const workers: Worker[] = [];
@@ -82,22 +93,27 @@ export async function runPoints(plan: SweepPlan, indices: readonly number[], opt
       stop();
       reject(e);
     };
+    const store = (index: number, row: SweepRow) => {
+      rows.set(index, row);
+      opts.onProgress?.(rows.size, total);
+      if (rows.size === total) {
+        stop();
+        resolve(indices.map((i) => rows.get(i)!));
+      }
+    };
     const dispatch = (w: Worker) => {
       if (next < total) w.postMessage({ type: 'point', index: indices[next++] });
     };
-    for (let k = 0; k < jobs; k++) {
+    const local = opts.useMainThread ?? true;
+    for (let k = 0; k < (local ? jobs - 1 : jobs); k++) {
       const w = startWorker({ plan, options });
       workers.push(w);
       w.on('message', (m: { type: string; index: number; row?: SweepRow; error?: WireError; message?: string }) => {
         if (settled) return;
         if (m.type === 'ready') dispatch(w);
         else if (m.type === 'row') {
-          rows.set(m.index, m.row!);
-          opts.onProgress?.(rows.size, total);
-          if (rows.size === total) {
-            stop();
-            resolve(indices.map((i) => rows.get(i)!));
-          } else dispatch(w);
+          store(m.index, m.row!);
+          if (!settled) dispatch(w);
         } else if (m.type === 'error') fail(annotatePointError(fromWire(m.error!), label(plan, m.index)));
         else if (m.type === 'fatal') fail(new Error(`a sweep worker could not start: ${m.message}`));
       });
@@ -106,5 +122,20 @@ export async function runPoints(plan: SweepPlan, indices: readonly number[], opt
         if (!settled && code !== 0) fail(new Error(`a sweep worker stopped with exit code ${code}`));
       });
     }
+    const compute = async () => {
+      while (!settled && next < total) {
+        const i = indices[next++]!;
+        let row: SweepRow;
+        try {
+          row = evaluatePoint(plan, i, options);
+        } catch (e) {
+          fail(annotatePointError(e, label(plan, i)));
+          return;
+        }
+        store(i, row);
+        await new Promise<void>((r) => setImmediate(r));
+      }
+    };
+    if (local) void compute();
   });
 }

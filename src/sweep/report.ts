@@ -47,7 +47,13 @@ export function formatSweepReport(o: SweepOutcome, info: { jobs?: number; second
         const c = plan.header.find((h) => h === s.path || h.startsWith(`${s.path}_`))!;
         return `${s.path} = ${formatColumnValue(c, y.worst!.values[c] ?? null)}`;
       });
-      const how = y.worst.margin === null ? 'a check could not be measured' : `${y.worst.failed} check(s) fail, worst excess ${formatColumnValue('checks_margin', y.worst.margin)}`;
+      const m = y.worst.margin;
+      const how =
+        m === null
+          ? 'a check could not be measured'
+          : y.worst.failed
+            ? `${y.worst.failed} check(s) fail, the worst by ${Number((100 * m).toPrecision(3))} % of its limit`
+            : `every check passes; the closest is ${Number((-100 * m).toPrecision(3))} % of its limit inside it`;
       lines.push(`  worst    sample ${y.worst.point} (${params.join(', ')}): ${how}`);
     }
   }

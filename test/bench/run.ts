@@ -51,3 +51,30 @@ for (const cells of [200, 2000, 20000, 200000]) {
 }
 console.log('scenarios (whole run, including set-up):');
 await scenarioBench(join(process.cwd(), 'scenarios'));
+
+/**
+ * Sweep throughput: points per second for a 200-point sweep of a demo net with 1 thread and with 2
+ * (one worker thread plus the main thread), for a short run (motor-clock-series.json, a few ms per
+ * point: the workers' start-up shows) and a longer one (greenhouse-sensor-cable.json).
+ * Target: 2 threads ≥ 1.7× as fast as 1 on a 2-core machine (for runs where simulation dominates).
+ */
+async function sweepBench(scenario: string, vary: string): Promise<void> {
+  const { planSweep, runPoints } = await import('../../src/sweep/index.js');
+  const plan = await planSweep({ file: join(process.cwd(), 'scenarios', scenario), vary: [vary] });
+  const points = [...Array(plan.points).keys()];
+  await runPoints(plan, points.slice(0, 5), { jobs: 1 }); // warm up the JIT
+  const rate: number[] = [];
+  console.log(`  ${scenario}, ${vary}:`);
+  for (const jobs of [1, 2]) {
+    const t0 = process.hrtime.bigint();
+    await runPoints(plan, points, { jobs });
+    const s = Number(process.hrtime.bigint() - t0) / 1e9;
+    rate.push(plan.points / s);
+    console.log(`    ${jobs} thread${jobs > 1 ? 's' : ' '}: ${(plan.points / s).toFixed(1).padStart(7)} points/s (${plan.points} points in ${s.toFixed(2)} s)`);
+  }
+  console.log(`    speed-up with 2 threads: ${(rate[1]! / rate[0]!).toFixed(2)}× (target ≥ 1.7×)`);
+}
+
+console.log('sweeps of 200 points:');
+await sweepBench('motor-clock-series.json', 'route.rs.series.r=0ohm..60ohm:200');
+await sweepBench('greenhouse-sensor-cable.json', 'receiver.parts[0].r=100ohm..2kohm:200');
