@@ -6,23 +6,30 @@ import { simulate } from '../../sim/simulate.js';
 import type { Net } from '../../sim/model.js';
 import { loadScenario } from '../../src/scenario/load.js';
 
-function lineNet(cells: number): Net {
+/** Four R‖L sections and four R–C branches per cell, as a realised lossy line carries (values illustrative). */
+const LOSS_TERMS = {
+  series: [1e-11, 1e-10, 1e-9, 1e-8].map((tau, k) => ({ value: 2 * (k + 1), tau })),
+  shunt: [1e-11, 1e-10, 1e-9, 1e-8].map((tau) => ({ value: 1e-12, tau })),
+};
+
+function lineNet(cells: number, lossy = false): Net {
   // 1 m of 50 Ω line at 5 ns/m, edge chosen so the line gets `cells` cells at 20 steps per rise
   const rise = (5e-9 / cells) * 20;
+  const line = { r: 0, g: 0, l: 250e-9, c: 100e-12, ...(lossy ? LOSS_TERMS : {}) };
   return {
     title: `bench ${cells}`,
     driver: { signal: { kind: 'step', from: 0, to: 1, start: 0, rise }, resistance: 25 },
-    route: [{ kind: 'line', name: 'line', line: { r: 0, g: 0, l: 250e-9, c: 100e-12 }, length: 1 }],
+    route: [{ kind: 'line', name: 'line', line, length: 1 }],
     receiver: [{ r: 0, l: 0, c: 2e-12, rail: 0 }],
     probes: [{ name: 'rx', at: 'receiver' }],
     run: { cellsPerRise: 20, duration: 0 },
   };
 }
 
-function kernelBench(cells: number): { nsPerCellStep: number; steps: number } {
-  const target = 4e8; // cell-steps per measurement: about a second at 2 ns
+function kernelBench(cells: number, lossy = false): { nsPerCellStep: number; steps: number } {
+  const target = lossy ? 1e8 : 4e8; // cell-steps per measurement: about a second
   const steps = Math.max(200, Math.round(target / cells));
-  const base = lineNet(cells);
+  const base = lineNet(cells, lossy);
   const dt = 5e-9 / cells;
   const run = (n: number) => simulate({ ...base, run: { ...base.run, duration: n * dt, sample: n * dt } });
   run(Math.min(steps, 2000)); // warm up the JIT
@@ -49,6 +56,10 @@ for (const cells of [200, 2000, 20000, 200000]) {
   const r = kernelBench(cells);
   console.log(`  N = ${String(cells).padStart(6)}: ${r.nsPerCellStep.toFixed(2).padStart(6)} ns per cell-step (${r.steps} steps)`);
 }
+const lossless = kernelBench(2000).nsPerCellStep;
+const lossy = kernelBench(2000, true).nsPerCellStep;
+console.log('line kernel with 4 conductor + 4 dielectric states per cell (target ≤ 3× the lossless cost):');
+console.log(`  N =   2000: ${lossy.toFixed(2).padStart(6)} ns per cell-step, ${(lossy / lossless).toFixed(2)}× lossless`);
 console.log('scenarios (whole run, including set-up):');
 await scenarioBench(join(process.cwd(), 'scenarios'));
 
