@@ -14,7 +14,7 @@ import { parseText, toPlain } from '../scenario/parse.js';
 import { Problems, ScenarioError, type Problem } from '../scenario/problems.js';
 import { concretePath, PathError, withValues } from './paths.js';
 import { parsePickSyntax, pickBands, resolvePick } from './pick.js';
-import { netChecks } from '../scenario/checks.js';
+import { netChecks, netThresholds } from '../scenario/checks.js';
 import { Xoshiro128ss } from './prng.js';
 import { nominalValue, parseShard, parseSpread, parseVary, scenarioValue, SweepSpecError, type SpreadSpec, type VaryAxis } from './spec.js';
 
@@ -148,8 +148,10 @@ export async function planSweep(req: SweepRequest): Promise<SweepPlan> {
   if (mode === 'montecarlo' && !hasChecks) throw new SweepSpecError(`a Monte Carlo run reports the fraction of samples passing the scenario's checks, and ${req.file} has no "checks"`);
 
   const bands = [...checkBands(net), ...(pickSyntax ? pickBands(pickSyntax) : [])];
-  const columns = metricColumns(bands);
   const probes = net.probes.map((p) => p.name);
+  // Columns measured against logic thresholds only when some probe has them.
+  const anyThresholds = probes.some((p) => netThresholds(net, p) !== undefined);
+  const columns = metricColumns(bands).filter((c) => anyThresholds || !c.needsThresholds);
   const defaultProbe = receiverProbe(net);
   const params = mode === 'grid' ? axes.map((a) => ({ path: a.path, column: paramColumn(a.path, a.unit), unit: a.unit })) : planned.map((s) => ({ path: s.path, column: paramColumn(s.path, s.valueUnit), unit: s.valueUnit }));
   const pick = pickSyntax ? resolvePick(pickSyntax, { probes, defaultProbe, columns, params }) : undefined;
