@@ -5,6 +5,7 @@ import { Command, CommanderError } from 'commander';
 import { toolInfo } from '../output/tool.js';
 import { registerLineCommand } from './commands/line.js';
 import { registerRunCommand } from './commands/run.js';
+import { registerTdrCommand } from './commands/tdr.js';
 import { registerCheckCommand } from './commands/check.js';
 import { registerSweepCommand } from './commands/sweep.js';
 import { registerMergeCommand } from './commands/merge.js';
@@ -27,6 +28,7 @@ export function createProgram(ctx: CliContext): Command {
       writeErr: (s) => ctx.io.err(s),
     });
   registerRunCommand(program, ctx);
+  registerTdrCommand(program, ctx);
   registerLineCommand(program, ctx);
   registerCheckCommand(program, ctx);
   registerSweepCommand(program, ctx);

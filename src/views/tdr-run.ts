@@ -1,0 +1,114 @@
+// `ladderwave tdr` as a library function: scenario file → TDR net → simulation → impedance profile →
+// tdr.png and tdr.csv in an output folder. Everything that can fail because of the input happens
+// before the folder is created; the two files are written to temporary names and renamed together
+// (tdr.csv last, so a complete CSV means a complete output), and a folder this call created is
+// removed again if writing fails.
+import { mkdir, rmdir } from 'node:fs/promises';
+import { dirname, join, resolve, sep } from 'node:path';
+import type { Net } from '../../sim/model.js';
+import type { SimResult } from '../../sim/result.js';
+import { RunRefused } from '../../sim/errors.js';
+import { DEFAULT_LIMITS, type RunLimits } from '../../sim/limits.js';
+import { planRun, simulate } from '../../sim/simulate.js';
+import { AtomicBatch } from '../output/atomic.js';
+import { OutputError, readScenarioFile, type LoadedScenario } from '../output/run.js';
+import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from './tdr.js';
+
+export const TDR_FILES = { png: 'tdr.png', csv: 'tdr.csv' } as const;
+
+/** Default 10–90 % rise time of the TDR step: 35 ps, a common bench TDR edge (common practice). */
+export const DEFAULT_TDR_RISE = 35e-12;
+
+export interface TdrRunOptions {
+  /** 10–90 % rise time (s); default DEFAULT_TDR_RISE. */
+  rise?: number;
+  /** Reference impedance (Ω); default the first segment's Z0. */
+  z0?: number;
+  force?: boolean;
+  limits?: Partial<RunLimits>;
+  width?: number;
+  height?: number;
+  onPhase?: (phase: 'load' | 'simulate' | 'render' | 'write') => void;
+}
+
+export interface TdrReport {
+  scenario: LoadedScenario;
+  outDir: string;
+  /** The TDR set-up that was simulated. */
+  net: Net;
+  result: SimResult;
+  profile: TdrProfile;
+  files: string[];
+  wallTime: { simulate: number; total: number };
+}
+
+export async function runTdrFile(file: string, outDir: string, options: TdrRunOptions = {}): Promise<TdrReport> {
+  const t0 = performance.now();
+  options.onPhase?.('load');
+  const scenario = await readScenarioFile(file);
+  const rise = options.rise ?? DEFAULT_TDR_RISE;
+  const net = tdrNet(scenario.net, { rise, z0: options.z0 });
+  if (!options.force) refuseWithAdvice(net, rise, options.limits);
+
+  options.onPhase?.('simulate');
+  const t1 = performance.now();
+  const result = simulate(net, { force: options.force, limits: options.limits });
+  const simSeconds = (performance.now() - t1) / 1000;
+  const profile = tdrProfile(net, result);
+
+  options.onPhase?.('render');
+  const png = await renderTdr({ title: net.title, profile, width: options.width, height: options.height });
+  const csv = tdrCsv(profile);
+
+  options.onPhase?.('write');
+  let created: string | undefined;
+  try {
+    created = await mkdir(outDir, { recursive: true });
+  } catch (e) {
+    throw new OutputError(`cannot create the output folder ${outDir}: ${(e as Error).message}`, e);
+  }
+  const batch = new AtomicBatch();
+  let files: string[];
+  try {
+    await batch.stage(join(outDir, TDR_FILES.png), png);
+    await batch.stage(join(outDir, TDR_FILES.csv), csv);
+    files = await batch.commit();
+  } catch (e) {
+    await batch.abort();
+    if (created) await removeEmptyFolders(created, outDir);
+    throw new OutputError(`cannot write the outputs in ${outDir}: ${(e as Error).message}`, e);
+  }
+  return { scenario, outDir, net, result, profile, files, wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 } };
+}
+
+/**
+ * Throws RunRefused when the TDR run would exceed the size limits, adding the slower step that would
+ * fit: the work grows about as 1/t_r² (cells ∝ 1/t_r and steps ∝ 1/t_r), so t_r·√(work/limit) fits.
+ */
+function refuseWithAdvice(net: Net, rise: number, limits?: Partial<RunLimits>): void {
+  const { plan, refusal } = planRun(net, { limits });
+  if (!refusal) return;
+  const max = { ...DEFAULT_LIMITS, ...limits }.maxCellSteps;
+  const factor = Math.max(1, Math.sqrt((plan.steps * plan.nodes) / max)) * 1.1;
+  const e = Math.floor(Math.log10(rise * factor)) - 1;
+  const suggested = Math.ceil((rise * factor) / 10 ** e) * 10 ** e;
+  // the run's duration is the TDR's own choice: drop advice about it
+  const lines = refusal.replace(/a duration up to \S+ s would fit, or lower/, 'lower').split('\n');
+  const advice = `  a slower TDR step would fit: --rise ${Number((suggested * 1e12).toPrecision(3))}ps or more (the resolution coarsens in proportion)`;
+  lines.splice(Math.max(1, lines.length - 1), 0, advice);
+  throw new RunRefused(lines.join('\n'));
+}
+
+/** Removes the empty folders from `leaf` up to and including `top` (what mkdir -p created). */
+async function removeEmptyFolders(top: string, leaf: string): Promise<void> {
+  const topAbs = resolve(top);
+  let dir = resolve(leaf);
+  while (dir === topAbs || dir.startsWith(topAbs + sep)) {
+    try {
+      await rmdir(dir);
+    } catch {
+      return;
+    }
+    dir = dirname(dir);
+  }
+}

@@ -1,0 +1,360 @@
+// Time-domain reflectometry (TDR) of a route: drive it from a matched step source, watch the wave
+// that comes back to the driver pin, and read it as impedance along the route.
+//
+//   incident wave   V_inc(t) = (V_S(t) − V_S(0)) · Z_ref/(R_S + Z_ref) = ΔV_S(t)/2   (R_S = Z_ref)
+//   reflection      ρ(t) = (V(t) − V(0) − V_inc(t)) / V_inc,final
+//   impedance       Z(t) = Z_ref · (1 + ρ)/(1 − ρ)
+// (Γ ↔ Z with Z_ref, e.g. Pozar, Microwave Engineering, ch. 2; the step-TDR reading of it in the
+// HP 54753A TDR plug-in user's guide, chapter "TDR Fundamentals".)
+//
+// Time is the round-trip time τ since the incident step's 50 % point; distance walks the route at
+// each segment's own velocity for one-way time τ/2 (lumped parts take no time). Past the receiver the
+// reading continues at the last segment's velocity: it then shows how the receiver's load reads.
+// Readings behind a discontinuity are first-order: later sections read through the reflections of
+// earlier ones (the usual TDR masking; they are not corrected here).
+//
+// Resolution: two discontinuities closer than half the step's 10–90 % rise time in round-trip time
+// merge, i.e. d_min = v·t_r/4 (HP 54753A user's guide, "TDR Fundamentals", rise time and distance
+// resolution).
+import { NetError } from '../../sim/errors.js';
+import type { Net } from '../../sim/model.js';
+import type { SimResult } from '../../sim/result.js';
+import { rampDuration, signalFunction } from '../../sim/signals.js';
+import { drawLinePlot } from '../render/lineplot.js';
+import type { Marker } from '../render/marks.js';
+import { OKABE_ITO, THEME } from '../render/palette.js';
+import { encodePng, Surface, type Rect } from '../render/surface.js';
+import { formatSi } from '../render/ticks.js';
+import { drawTitleBlock } from './panels.js';
+
+export interface TdrOptions {
+  /** 10–90 % rise time of the step (s). */
+  rise: number;
+  /** Reference impedance = source resistance (Ω); default: the first line segment's Z0. */
+  z0?: number;
+  /** Step amplitude (V, default 1). */
+  amplitude?: number;
+}
+
+/** Name of the probe tdrNet puts at the driver pin. */
+export const TDR_PROBE = 'tdr';
+
+function segmentsOf(net: Net) {
+  const out: { name: string; from: number; to: number; z0: number; delay: number; velocity: number }[] = [];
+  let x = 0;
+  for (const it of net.route) {
+    if (it.kind !== 'line') continue;
+    if (it.length > 0) {
+      const tpd = Math.sqrt(it.line.l * it.line.c);
+      out.push({ name: it.name, from: x, to: x + it.length, z0: Math.sqrt(it.line.l / it.line.c), delay: it.length * tpd, velocity: 1 / tpd });
+    }
+    x += it.length;
+  }
+  return out;
+}
+
+/**
+ * The TDR set-up of a net: the driver replaced by a step of the given rise time from a source whose
+ * resistance matches the reference impedance (the first segment's Z0 unless `z0` is given); the route
+ * and receiver as they are; one probe at the driver pin; run long enough for the wave to come back
+ * from the receiver, plus a margin.
+ */
+export function tdrNet(net: Net, opts: TdrOptions): Net {
+  if (!(opts.rise > 0) || !Number.isFinite(opts.rise)) throw new RangeError(`tdrNet: rise must be a positive time, got ${opts.rise}`);
+  const segs = segmentsOf(net);
+  const z0 = opts.z0 ?? segs[0]?.z0;
+  if (z0 === undefined) {
+    throw new NetError([{ path: 'route', message: 'a TDR needs a reference impedance: the route has no line segment, so give one (--z0)' }]);
+  }
+  if (!(z0 > 0) || !Number.isFinite(z0)) throw new RangeError(`tdrNet: z0 must be a positive resistance, got ${z0}`);
+  const ramp = rampDuration(opts.rise);
+  const start = ramp;
+  const roundTrip = 2 * segs.reduce((a, s) => a + s.delay, 0);
+  const margin = Math.max(10 * opts.rise, 0.25 * roundTrip);
+  return {
+    ...net,
+    title: `TDR: ${net.title}`,
+    driver: { signal: { kind: 'step', from: 0, to: opts.amplitude ?? 1, start, rise: opts.rise }, resistance: z0 },
+    probes: [{ name: TDR_PROBE, at: 'driver' }],
+    run: { ...net.run, duration: start + ramp + roundTrip + margin, sample: undefined },
+  };
+}
+
+export interface TdrSegment {
+  name: string;
+  from: number;
+  to: number;
+  z0: number;
+  velocity: number;
+  /** Round-trip times (s) at which the reading enters and leaves the segment. */
+  timeFrom: number;
+  timeTo: number;
+  /** v·t_r/4 in this segment (m). */
+  resolution: number;
+}
+
+export interface TdrPlace {
+  name: string;
+  kind: 'series' | 'shunt' | 'junction' | 'receiver';
+  distance: number;
+  /** Round-trip time (s). */
+  time: number;
+}
+
+export interface TdrProfile {
+  /** Round-trip time since the incident step's 50 % point (s). */
+  time: Float64Array;
+  /** Distance from the driver pin (m), at the local velocity. */
+  distance: Float64Array;
+  /** Z = Z_ref(1 + ρ)/(1 − ρ) (Ω); Infinity where ρ ≥ 1. */
+  impedance: Float64Array;
+  rho: Float64Array;
+  /** Reference impedance = source resistance (Ω). */
+  zRef: number;
+  /** 10–90 % rise time of the step (s). */
+  rise: number;
+  /** v·t_r/4 in the first segment (m): closer discontinuities merge. */
+  resolution: number;
+  segments: TdrSegment[];
+  /** Lumped parts, junctions between segments and the receiver, where the reading finds them. */
+  places: TdrPlace[];
+  routeLength: number;
+  /** Round-trip time to the receiver (s). */
+  routeTime: number;
+}
+
+/**
+ * The impedance profile of a TDR run (`net` as made by tdrNet, or any net driven by a step whose
+ * source resistance is the reference, with a probe at the driver pin).
+ */
+export function tdrProfile(net: Net, result: SimResult): TdrProfile {
+  const sig = net.driver.signal;
+  if (sig.kind !== 'step') throw new Error(`tdrProfile: the net must be driven by a step (see tdrNet), not a ${sig.kind}`);
+  const probe = net.probes.findIndex((p) => p.at === 'driver');
+  if (probe < 0) throw new Error('tdrProfile: the net needs a probe at the driver pin (see tdrNet)');
+  const zRef = net.driver.resistance;
+  const rec = result.record;
+  const n = rec.values.shape[1];
+  const v = rec.values.data.subarray(probe * n, (probe + 1) * n);
+  const dt = rec.dtSample;
+  const source = signalFunction(sig);
+  const t50 = sig.start + rampDuration(sig.rise) / 2;
+  const incFinal = (sig.to - sig.from) / 2;
+
+  // route geometry: segments with their round-trip times, and the places between them
+  const segs = segmentsOf(net);
+  const segments: TdrSegment[] = [];
+  const places: TdrPlace[] = [];
+  let rt = 0;
+  let x = 0;
+  for (const it of net.route) {
+    if (it.kind === 'line') {
+      const s = segs.find((q) => q.name === it.name);
+      if (s) {
+        if (segments.length > 0 && places[places.length - 1]?.distance !== s.from) {
+          places.push({ name: `${segments[segments.length - 1].name}|${s.name}`, kind: 'junction', distance: s.from, time: rt });
+        }
+        segments.push({ ...s, timeFrom: rt, timeTo: rt + 2 * s.delay, resolution: (s.velocity * sig.rise) / 4 });
+        rt += 2 * s.delay;
+      }
+      x += it.length;
+    } else {
+      places.push({ name: it.name, kind: it.kind, distance: x, time: rt });
+    }
+  }
+  places.push({ name: 'receiver', kind: 'receiver', distance: x, time: rt });
+
+  const i0 = Math.max(0, Math.ceil(t50 / dt - 1e-9));
+  const m = Math.max(0, n - i0);
+  const time = new Float64Array(m), distance = new Float64Array(m), impedance = new Float64Array(m), rho = new Float64Array(m);
+  const v0 = v[0];
+  const s0 = source(0);
+  let k = 0;
+  for (let j = 0; j < m; j++) {
+    const i = i0 + j;
+    const t = i * dt;
+    const tau = t - t50;
+    time[j] = tau;
+    const inc = (source(t) - s0) / 2;
+    const r = (v[i] - v0 - inc) / incFinal;
+    rho[j] = r;
+    impedance[j] = r >= 1 ? Infinity : (zRef * (1 + r)) / (1 - r);
+    // distance: walk the segments (times increase with j, so the index only moves forward)
+    while (k < segments.length - 1 && tau >= segments[k].timeTo) k++;
+    if (segments.length === 0) distance[j] = 0;
+    else {
+      const s = segments[k];
+      distance[j] = tau < s.timeFrom ? s.from : s.from + ((tau - s.timeFrom) / 2) * s.velocity;
+    }
+  }
+  return {
+    time,
+    distance,
+    impedance,
+    rho,
+    zRef,
+    rise: sig.rise,
+    resolution: segments.length ? segments[0].resolution : 0,
+    segments,
+    places,
+    routeLength: x,
+    routeTime: rt,
+  };
+}
+
+/**
+ * What the profile reads in the middle of each segment: the median impedance over its middle half,
+ * and at least one resolution away from its ends (NaN when no sample falls there).
+ */
+export function segmentReadings(p: TdrProfile): { name: string; z0: number; reading: number }[] {
+  return p.segments.map((sg) => {
+    const len = sg.to - sg.from;
+    const a = sg.from + Math.max(0.25 * len, sg.resolution), b = sg.to - Math.max(0.25 * len, sg.resolution);
+    const zs: number[] = [];
+    for (let i = 0; i < p.time.length; i++) {
+      // the first pass only: round-trip times inside this segment's span
+      if (p.time[i] < sg.timeFrom || p.time[i] > sg.timeTo) continue;
+      if (p.distance[i] >= a && p.distance[i] <= b) zs.push(p.impedance[i]);
+    }
+    zs.sort((x, y) => x - y);
+    const reading = zs.length === 0 ? NaN : zs.length % 2 ? zs[(zs.length - 1) / 2] : (zs[zs.length / 2 - 1] + zs[zs.length / 2]) / 2;
+    return { name: sg.name, z0: sg.z0, reading };
+  });
+}
+
+/** The profile as CSV: `time_s,distance_m,impedance_ohm`, full precision, `inf` for an open reading. */
+export function tdrCsv(p: TdrProfile): string {
+  const parts: string[] = ['time_s,distance_m,impedance_ohm\n'];
+  const num = (v: number) => (v === Infinity ? 'inf' : v === -Infinity ? '-inf' : String(v));
+  let chunk = '';
+  for (let i = 0; i < p.time.length; i++) {
+    chunk += `${num(p.time[i])},${num(p.distance[i])},${num(p.impedance[i])}\n`;
+    if (chunk.length > 1 << 16) {
+      parts.push(chunk);
+      chunk = '';
+    }
+  }
+  parts.push(chunk);
+  return parts.join('');
+}
+
+/** The impedance range to show: the readings along the route (and a little past it), capped at 4·Z_ref. */
+export function tdrImpedanceDomain(p: TdrProfile): [number, number] {
+  let lo = p.zRef, hi = p.zRef;
+  const tMax = p.routeTime + 0.1 * Math.max(p.routeTime, 8 * p.rise);
+  for (let i = 0; i < p.time.length && p.time[i] <= tMax; i++) {
+    const z = p.impedance[i];
+    if (!Number.isFinite(z)) continue;
+    if (z < lo) lo = z;
+    if (z > hi) hi = z;
+  }
+  lo = Math.max(0, lo);
+  hi = Math.min(hi, 4 * p.zRef);
+  const span = Math.max(hi - lo, 0.2 * p.zRef);
+  return [Math.max(0, lo - 0.12 * span), hi + 0.12 * span];
+}
+
+export interface TdrRenderInput {
+  title: string;
+  profile: TdrProfile;
+  /** Pixels (default 1200 × 900). */
+  width?: number;
+  height?: number;
+}
+
+const TRACE = { color: OKABE_ITO.blue, width: 2, dash: [] as number[] };
+
+/** Two panels: impedance against distance (top) and against round-trip time (bottom), places marked. */
+export function drawTdr(s: Surface, area: Rect, input: TdrRenderInput): { distance: ReturnType<typeof drawLinePlot>; time: ReturnType<typeof drawLinePlot> } {
+  const p = input.profile;
+  const pad = 16;
+  const first = p.segments[0];
+  const resText = first
+    ? `Resolution ≈ v·t_r/4 = ${formatSi(p.resolution, 'm', 2)} in '${first.name}' (discontinuities closer than this merge).`
+    : '';
+  const titleH =
+    pad +
+    drawTitleBlock(
+      s,
+      { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
+      input.title,
+      `Matched step source: ${formatSi(p.rise, 's', 3)} (10–90 %), R_S = Z_ref = ${formatSi(p.zRef, 'Ω', 3)}. ` +
+        `Z = Z_ref·(1 + ρ)/(1 − ρ), ρ = reflected / incident wave at the driver pin; distance from the round-trip time at each segment's own velocity; later readings include multiple reflections of earlier places. ` +
+        resText,
+    );
+  const yDomain = tdrImpedanceDomain(p);
+  const shownTime = Math.min(p.time.length ? p.time[p.time.length - 1] : 0, p.routeTime + Math.max(0.12 * p.routeTime, 10 * p.rise));
+  const last = p.segments[p.segments.length - 1];
+  const shownDist = last ? last.to + ((shownTime - p.routeTime) / 2) * last.velocity : 1;
+
+  const placeMarkers = (at: (pl: TdrPlace) => number): Marker[] =>
+    p.places.map((pl) => ({
+      axis: 'x' as const,
+      at: at(pl),
+      label: pl.kind === 'junction' ? undefined : pl.name,
+      color: pl.kind === 'junction' ? '#5b6472' : '#2b2f38',
+      dash: pl.kind === 'junction' ? [5, 4] : [],
+    }));
+  const refMarker: Marker = { axis: 'y', at: p.zRef, label: `Z_ref ${formatSi(p.zRef, 'Ω', 3)}`, color: THEME.mutedText, dash: [2, 3] };
+  const bodyH = area.h - titleH;
+  const topArea: Rect = { x: area.x, y: area.y + titleH, w: area.w, h: Math.round(bodyH * 0.56) };
+  const botArea: Rect = { x: area.x, y: topArea.y + topArea.h, w: area.w, h: bodyH - topArea.h };
+  const distance = drawLinePlot(s, topArea, {
+    title: 'Impedance along the route',
+    x: { label: 'Distance from the driver pin', unit: 'm', domain: [0, shownDist] },
+    y: { label: 'Impedance', unit: 'Ω', domain: yDomain },
+    series: [{ name: 'Z', values: p.impedance, xs: p.distance, style: TRACE, hideInLegend: true }],
+    markers: [...placeMarkers((pl) => pl.distance), refMarker],
+    legend: 'none',
+  });
+  labelSegments(s, distance, p.segments, (sg) => [sg.from, sg.to]);
+  shadeBeyond(s, distance, p.routeLength);
+  const time = drawLinePlot(s, botArea, {
+    title: 'Against round-trip time',
+    x: { label: 'Round-trip time', unit: 's', domain: [0, shownTime] },
+    y: { label: 'Impedance', unit: 'Ω', domain: yDomain },
+    series: [{ name: 'Z', values: p.impedance, xs: p.time, style: TRACE, hideInLegend: true }],
+    markers: [...placeMarkers((pl) => pl.time), refMarker],
+    legend: 'none',
+  });
+  labelSegments(s, time, p.segments, (sg) => [sg.timeFrom, sg.timeTo]);
+  shadeBeyond(s, time, p.routeTime);
+  return { distance, time };
+}
+
+/** Each segment's name and Z0 along the bottom of the plot, centred on its span, where it fits. */
+function labelSegments(s: Surface, f: ReturnType<typeof drawLinePlot>, segs: readonly TdrSegment[], span: (sg: TdrSegment) => [number, number]): void {
+  const { plot } = f;
+  for (const sg of segs) {
+    const [a, b] = span(sg);
+    const x0 = Math.max(plot.x, f.x.map(a)), x1 = Math.min(plot.x + plot.w - 1, f.x.map(b));
+    for (const text of [`${sg.name} · ${formatSi(sg.z0, 'Ω', 3)}`, sg.name]) {
+      const w = s.measureText(text, 11).width;
+      if (w + 8 > x1 - x0) continue;
+      const m = s.measureText(text, 11);
+      const xc = (x0 + x1) / 2, yb = plot.y + plot.h - 6;
+      s.fillRect(xc - w / 2 - 3, yb - m.ascent - m.descent - 1, w + 6, m.ascent + m.descent + 2, THEME.panel, 0.85);
+      s.text(text, xc, yb, { size: 11, color: THEME.mutedText, align: 'center', baseline: 'bottom' });
+      break;
+    }
+  }
+}
+
+/** Grey veil over the part of a plot past the receiver, with a note. */
+function shadeBeyond(s: Surface, f: ReturnType<typeof drawLinePlot>, at: number): void {
+  const { plot } = f;
+  const x0 = Math.ceil(f.x.map(at)) + 1;
+  const x1 = plot.x + plot.w - 1;
+  if (x1 - x0 < 4) return;
+  s.fillRect(x0, plot.y + 1, x1 - x0, plot.h - 2, '#8a93a3', 0.14);
+  const text = 'past the receiver';
+  const w = s.measureText(text, 11).width;
+  if (x1 - x0 > w + 10) s.text(text, x0 + 6, plot.y + 6, { size: 11, color: THEME.mutedText, align: 'left', baseline: 'top' });
+}
+
+/** The TDR view as PNG bytes (default 1200 × 900). */
+export async function renderTdr(input: TdrRenderInput): Promise<Buffer> {
+  const s = new Surface(input.width ?? 1200, input.height ?? 900);
+  drawTdr(s, { x: 0, y: 0, w: s.width, h: s.height }, input);
+  return encodePng(s);
+}
