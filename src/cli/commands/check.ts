@@ -67,11 +67,18 @@ export function registerCheckCommand(program: Command, ctx: CliContext): void {
     .command('check')
     .summary("run scenarios and their checks; exit 1 if a check fails")
     .description(
-      "Run each scenario, measure its probes, evaluate its \"checks\" and print a table (scenario, probe, metric,\n" +
-        'limit, measured, PASS/FAIL). Arguments are files, folders or glob patterns ("scenarios/**/*.json").\n' +
-        'Golden waveforms: --golden DIR compares every probe with DIR/<scenario name>.csv within\n' +
-        '--golden-tolerance volts, allowing a time shift up to --golden-shift; --update-golden rewrites them.\n' +
-        'Exit codes: 0 every check passed, 1 a check failed, 2 bad input or usage, 3 refused (over a size limit).',
+      [
+        'Run each scenario, measure its probes and evaluate its "checks"; print a',
+        'table: scenario, probe, metric, limit, measured, PASS/FAIL. Arguments are',
+        'files, folders or glob patterns ("scenarios/**/*.json").',
+        '',
+        'Golden waveforms: --golden DIR compares every probe with',
+        'DIR/<scenario name>.csv within --golden-tolerance volts, allowing a time',
+        'shift up to --golden-shift; --update-golden rewrites them on purpose.',
+        '',
+        'Exit codes: 0 every check passed, 1 a check failed, 2 bad input or usage,',
+        '3 refused (over a size limit).',
+      ].join('\n'),
     )
     .argument('<scenarios...>', 'scenario files, folders or glob patterns')
     .option('--junit <file>', 'write JUnit XML (one test suite per scenario, one test case per check)')

@@ -33,9 +33,14 @@ export function registerMergeCommand(program: Command, ctx: CliContext): void {
     .command('merge')
     .summary('combine the shard folders of a sweep into the files a single run writes')
     .description(
-      'Combine the output folders of `ladderwave sweep --shard K/N` runs (all N of them) into sweep.csv, sweep.png,\n' +
-        'sweep.json and best/ or worst/, exactly as the unsharded sweep writes them.\n' +
-        'Exit codes: 0 done, 1 no point meets the --pick conditions, 2 bad input or usage.',
+      [
+        'Combine the output folders of `ladderwave sweep --shard K/N` (all N of them)',
+        'into sweep.csv, sweep.png, sweep.json and best/ or worst/, exactly as the',
+        'unsharded sweep writes them.',
+        '',
+        'Exit codes: 0 done, 1 no point meets the --pick conditions,',
+        '2 bad input or usage.',
+      ].join('\n'),
     )
     .argument('<dirs...>', 'shard output folders')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sweep)')

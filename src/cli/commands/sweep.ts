@@ -8,8 +8,8 @@ import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, type ExitCode } from '../exit.js';
 
 export interface SweepCommandOptions {
-  vary: string[];
-  spread: string[];
+  vary?: string[];
+  spread?: string[];
   samples?: string;
   seed?: string;
   pick?: string;
@@ -68,29 +68,37 @@ export async function sweepCommand(file: string, opts: SweepCommandOptions, ctx:
   }
 }
 
-const collect = (v: string, prev: string[]) => [...prev, v];
+const collect = (v: string, prev: string[] | undefined) => [...(prev ?? []), v];
 
 export function registerSweepCommand(program: Command, ctx: CliContext): void {
   program
     .command('sweep')
     .summary('vary scenario values over a grid or a Monte Carlo spread; pick the best point')
     .description(
-      'Run a scenario many times with values changed, in parallel, and write sweep.csv (one row per point: the\n' +
-        'varied values and every measurement), sweep.png and sweep.json.\n' +
-        '  --vary PATH=A..B:N | PATH=A..B:N:log | PATH=a,b,c   (several make a grid)\n' +
-        '  --pick "minimize settling where overshoot<10% and ringback<0.2V"  writes the best point to best/\n' +
-        '  --spread PATH=±10% | PATH=~N(5%) --samples N --seed S            Monte Carlo yield, worst case to worst/\n' +
-        'Paths use item names: route.<item>.series.r, lines.<name>.z0, driver.resistance, receiver.parts[0].c.\n' +
-        'Exit codes: 0 done, 1 no point meets the --pick conditions, 2 bad input or usage, 3 refused (size limit).',
+      [
+        'Run a scenario many times with values changed, in parallel; write sweep.csv',
+        '(a row per point: varied values, every measurement), sweep.png, sweep.json.',
+        '',
+        '  --vary PATH=A..B:N   or PATH=A..B:N:log or PATH=a,b,c (several: a grid)',
+        '  --pick "minimize settling where overshoot<10%"   best point to best/',
+        '  --spread PATH=±10%   or PATH=~N(5%), with --samples and --seed:',
+        '                       Monte Carlo yield, worst case to worst/',
+        '',
+        'Paths use item names: route.<item>.series.r, lines.<name>.z0,',
+        'driver.resistance, receiver.parts[0].c (docs/checks-and-sweeps.md).',
+        '',
+        'Exit codes: 0 done, 1 no point meets the --pick conditions,',
+        '2 bad input or usage, 3 refused (size limit).',
+      ].join('\n'),
     )
     .argument('<scenario>', 'scenario file (JSON or YAML)')
-    .option('--vary <spec>', 'a value to vary: PATH=A..B:N, PATH=A..B:N:log or PATH=a,b,c (repeat for a grid)', collect, [])
-    .option('--spread <spec>', 'Monte Carlo: PATH=±X (uniform) or PATH=~N(X) (normal); X in % is relative (repeatable)', collect, [])
+    .option('--vary <spec>', 'a value to vary: PATH=A..B:N, PATH=A..B:N:log or PATH=a,b,c (repeat for a grid)', collect)
+    .option('--spread <spec>', 'Monte Carlo: PATH=±X (uniform) or PATH=~N(X) (normal); X in % is relative (repeatable)', collect)
     .option('--samples <n>', 'Monte Carlo samples (default 100)')
     .option('--seed <n>', 'Monte Carlo seed (default 1)')
     .option('--pick <expr>', 'choose the best grid point, e.g. "minimize settling where overshoot<10%"')
     .option('--metric <name>', 'metric plotted in sweep.png (a metric like settling, or a column like overshoot_V)')
-    .option('-j, --jobs <n>', 'worker threads (default: all cores, os.availableParallelism())')
+    .option('-j, --jobs <n>', 'threads computing points (default: all cores, os.availableParallelism())')
     .option('--shard <k/n>', 'run only every N-th point starting at the K-th (1-based); combine with ladderwave merge')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sweep; a shard: …/shard-K-of-N)')
     .option('-q, --quiet', 'print nothing except errors (no progress)')
