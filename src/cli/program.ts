@@ -6,6 +6,7 @@ import { toolInfo } from '../output/tool.js';
 import { registerLineCommand } from './commands/line.js';
 import { registerRunCommand } from './commands/run.js';
 import { registerTdrCommand } from './commands/tdr.js';
+import { registerEyeCommand } from './commands/eye.js';
 import { registerCheckCommand } from './commands/check.js';
 import { registerSweepCommand } from './commands/sweep.js';
 import { registerMergeCommand } from './commands/merge.js';
@@ -29,6 +30,7 @@ export function createProgram(ctx: CliContext): Command {
     });
   registerRunCommand(program, ctx);
   registerTdrCommand(program, ctx);
+  registerEyeCommand(program, ctx);
   registerLineCommand(program, ctx);
   registerCheckCommand(program, ctx);
   registerSweepCommand(program, ctx);

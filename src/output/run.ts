@@ -1,21 +1,25 @@
 // The whole `run` pipeline as a library function: scenario file → net → simulation → PNG →
-// probes.csv, waveforms.png and summary.json in an output folder.
+// probes.csv, waveforms.png and summary.json in an output folder; optionally further views (map.png,
+// bounce.png, eye.png), animation frames (frames/frame-0001.png …) and report.html.
 //
 // Everything that can fail because of the input (reading and validating the scenario, the size
 // limits, building the network, rendering) happens before the output folder is created, so bad
-// input leaves nothing behind. The three files are then written to temporary names and renamed
+// input leaves nothing behind. The files are then written to temporary names and renamed
 // together, summary.json last; if writing fails, the temporary files (and a folder this run
 // created) are removed.
-import { readFile, mkdir, rmdir } from 'node:fs/promises';
+import { readdir, readFile, mkdir, rmdir, unlink } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
 import type { Net } from '../../sim/model.js';
-import type { SimResult } from '../../sim/result.js';
+import ndarray from 'ndarray';
+import type { ProbeRecord, SimResult } from '../../sim/result.js';
 import { simulate, type SimulateOptions } from '../../sim/simulate.js';
+import type { ViewName } from '../views/select.js';
+import type { EyeViewOptions } from '../views/draw.js';
 import { checkScenario } from '../scenario/load.js';
 import { ScenarioError, type Problem } from '../scenario/problems.js';
 import { AtomicBatch } from './atomic.js';
 import { probeRows, writeCsv } from './csv.js';
-import { buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
+import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
 import { addMeasurementSections } from '../checks/summary.js';
 
 /** File names inside an output folder. */
@@ -72,6 +76,18 @@ export interface RunOptions extends SimulateOptions {
   extendSummary?: (ctx: { net: Net; result: SimResult; summary: Summary }) => void | Promise<void>;
   /** Called as each phase starts (the CLI uses 'write' to clean up temporary files on Ctrl-C). */
   onPhase?: (phase: RunPhase) => void;
+  /**
+   * Views to draw, one PNG each (default ['waveforms']; `ladderwave run` defaults to waveforms and map).
+   * A view the scenario cannot have (an eye without a bits or clock signal) is skipped and listed in
+   * RunReport.skippedViews.
+   */
+  views?: readonly ViewName[];
+  /** Number of animation frames of the voltage along the route, in frames/ (default 0: none). */
+  frames?: number;
+  /** Also write report.html, one self-contained page with the views and the numbers. */
+  report?: boolean;
+  /** The eye view's probe, thresholds and sampling phase. */
+  eye?: EyeViewOptions;
 }
 
 export interface RunReport {
@@ -79,8 +95,12 @@ export interface RunReport {
   outDir: string;
   result: SimResult;
   summary: Summary;
-  /** Paths of the files written, in the order they were renamed into place. */
+  /** Paths of the files written, in the order they were renamed into place (frames apart). */
   files: string[];
+  /** Paths of the animation frames written (empty without --frames). */
+  frameFiles: string[];
+  /** Views that were asked for but that this scenario cannot have, and why. */
+  skippedViews: { view: ViewName; reason: string }[];
   /** Wall-clock seconds spent in the simulation proper, and in the whole call. */
   wallTime: { simulate: number; total: number };
 }
@@ -108,12 +128,33 @@ export async function renderResult(title: string, result: SimResult, options: { 
   });
 }
 
+/** A file of a run's output other than probes.csv and summary.json: a path relative to the output folder, and its bytes. */
+export interface OutputFile {
+  path: string;
+  data: string | Uint8Array;
+}
+
 /**
  * Writes probes.csv, waveforms.png (from `png`) and summary.json into `outDir`, creating it if
  * needed. All or nothing: on failure no new file appears under a final name, and a folder this call
  * created is removed again. Returns the paths written.
  */
 export async function writeRunOutputs(outDir: string, outputs: RunOutputs, png: Uint8Array): Promise<string[]> {
+  return writeRunFiles(outDir, outputs, [{ path: OUTPUT_FILES.png, data: png }]);
+}
+
+/**
+ * Writes probes.csv (unless `csv` is false), then `files` (relative paths; subfolders such as frames/
+ * are created), then summary.json (`summaryJson` when given, else serialized from `outputs.summary`)
+ * into `outDir`. All or nothing, as writeRunOutputs. Returns the paths written, in order.
+ */
+export async function writeRunFiles(
+  outDir: string,
+  outputs: RunOutputs,
+  files: readonly OutputFile[],
+  summaryJson?: string,
+  opts: { csv?: boolean } = {},
+): Promise<string[]> {
   let created: string | undefined;
   try {
     created = await mkdir(outDir, { recursive: true });
@@ -121,13 +162,23 @@ export async function writeRunOutputs(outDir: string, outputs: RunOutputs, png: 
     throw new OutputError(`cannot create the output folder ${outDir}: ${(e as Error).message}`, e);
   }
   const batch = new AtomicBatch();
+  const madeSubfolders: string[] = [];
   try {
-    await batch.stage(join(outDir, OUTPUT_FILES.csv), (sink) => writeCsv(outputs.result.record, sink));
-    await batch.stage(join(outDir, OUTPUT_FILES.png), png);
-    await batch.stage(join(outDir, OUTPUT_FILES.summary), summaryToJson(outputs.summary));
+    if (opts.csv ?? true) await batch.stage(join(outDir, OUTPUT_FILES.csv), (sink) => writeCsv(outputs.result.record, sink));
+    for (const f of files) {
+      const target = join(outDir, f.path);
+      const folder = dirname(target);
+      if (resolve(folder) !== resolve(outDir)) {
+        const made = await mkdir(folder, { recursive: true });
+        if (made) madeSubfolders.push(made);
+      }
+      await batch.stage(target, f.data);
+    }
+    await batch.stage(join(outDir, OUTPUT_FILES.summary), summaryJson ?? summaryToJson(outputs.summary));
     return await batch.commit();
   } catch (e) {
     await batch.abort();
+    for (const made of madeSubfolders.reverse()) await rmdir(made).catch(() => undefined);
     if (created) await removeCreatedFolders(created, outDir);
     throw new OutputError(`cannot write the outputs in ${outDir}: ${(e as Error).message}`, e);
   }
@@ -147,6 +198,34 @@ async function removeCreatedFolders(top: string, leaf: string): Promise<void> {
   }
 }
 
+/** The record restricted to the named probes, in that order (the views may have simulated extra ones). */
+export function selectProbes(record: ProbeRecord, names: readonly string[]): ProbeRecord {
+  if (names.length === record.names.length && names.every((n, i) => record.names[i] === n)) return record;
+  const n = record.values.shape[1];
+  const data = new Float64Array(names.length * n);
+  names.forEach((name, i) => {
+    const p = record.names.indexOf(name);
+    if (p < 0) throw new Error(`selectProbes: no probe '${name}' in the record`);
+    data.set(record.values.data.subarray(p * n, (p + 1) * n), i * n);
+  });
+  return { names: [...names], dtSample: record.dtSample, values: ndarray(data, [names.length, n]) };
+}
+
+/** Removes frame files in `folder` beyond the `count` just written (left over from a run with more frames). */
+async function removeStaleFrames(folder: string, count: number): Promise<void> {
+  const { FRAME_FILE_PATTERN } = await import('../views/frames.js');
+  let names: string[];
+  try {
+    names = await readdir(folder);
+  } catch {
+    return;
+  }
+  for (const name of names) {
+    const m = FRAME_FILE_PATTERN.exec(name);
+    if (m && Number(m[1]) > count) await unlink(join(folder, name)).catch(() => undefined);
+  }
+}
+
 /**
  * Load → simulate → render → write. Throws ScenarioError (bad file), NetError (a net that cannot
  * be simulated), RunRefused (over a size limit, unless `force`), or OutputError (cannot write);
@@ -157,25 +236,82 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   options.onPhase?.('load');
   const scenario = await readScenarioFile(file);
   const { net } = scenario;
+  const { planViews } = await import('../views/select.js');
+  const frames = options.frames ?? 0;
+  const plan = planViews(net, options.views ?? ['waveforms'], frames);
 
   options.onPhase?.('simulate');
   const t1 = performance.now();
-  const result = simulate(net, { force: options.force, limits: options.limits });
+  // The bounce view shows the driver pin and the receiver: simulate them even when no probe is there.
+  const views = plan.views.includes('bounce') ? await import('../views/bounce.js') : undefined;
+  const simNet = views ? views.withEndProbes(net) : net;
+  const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap ? {} : undefined });
   const simSeconds = (performance.now() - t1) / 1000;
+  const record = selectProbes(result.record, net.probes.map((p) => p.name));
+  const userResult: SimResult = { ...result, record };
 
   const summary = buildSummary({
     scenario: { file, sha256: scenario.sha256, title: net.title },
     discretization: result.discretization,
-    record: result.record,
+    record,
   });
   // Per-probe measurements and the scenario's checks (src/checks/summary.ts).
-  addMeasurementSections(summary, net, result);
-  await options.extendSummary?.({ net, result, summary });
+  addMeasurementSections(summary, net, userResult);
+  if (plan.views.includes('eye')) {
+    const { eyeInputFor } = await import('../views/draw.js');
+    const { measureEye } = await import('../views/eye.js');
+    const { probe, input } = eyeInputFor(net, userResult, options.eye);
+    const eye = measureEye(input);
+    addSummarySection(summary, 'eye', { probe, ...eye });
+    if (eye.windows === 0) {
+      plan.views = plan.views.filter((v) => v !== 'eye');
+      plan.skipped.push({ view: 'eye', reason: 'the run is shorter than two unit intervals at the probe; `ladderwave eye` runs long enough' });
+    }
+  }
+  await options.extendSummary?.({ net, result: userResult, summary });
 
   options.onPhase?.('render');
-  const png = await renderResult(net.title, result, options);
+  const { drawViews } = await import('../views/draw.js');
+  const drawn = await drawViews({ net: simNet, result, record, views: plan.views, width: options.width, height: options.height, eye: options.eye });
+  const files: OutputFile[] = drawn.map((d) => ({ path: d.file, data: d.png }));
+  const frameFiles: OutputFile[] = [];
+  let framesDir: string | undefined;
+  if (frames > 0 && result.routeMap) {
+    const { renderFrames, frameFileName, FRAMES_DIR } = await import('../views/frames.js');
+    framesDir = FRAMES_DIR;
+    const pngs = await renderFrames({ title: net.title, routeMap: result.routeMap, count: frames });
+    pngs.forEach((png, i) => frameFiles.push({ path: join(FRAMES_DIR, frameFileName(i, frames)), data: png }));
+  }
+  let summaryJson: string;
+  try {
+    summaryJson = summaryToJson(summary);
+  } catch (e) {
+    throw new OutputError(`cannot write the outputs in ${outDir}: ${OUTPUT_FILES.summary}: ${(e as Error).message}`, e);
+  }
+  const reportFiles: OutputFile[] = [];
+  if (options.report) {
+    const { buildReport, REPORT_FILE } = await import('../report/index.js');
+    const html = buildReport({
+      net,
+      summary: JSON.parse(summaryJson),
+      images: drawn.map((d) => ({ title: d.title, file: d.file, png: d.png })),
+      frames: framesDir ? { count: frames, folder: framesDir } : undefined,
+    });
+    reportFiles.push({ path: REPORT_FILE, data: html });
+  }
 
   options.onPhase?.('write');
-  const files = await writeRunOutputs(outDir, { title: net.title, result, summary }, png);
-  return { scenario, outDir, result, summary, files, wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 } };
+  const written = await writeRunFiles(outDir, { title: net.title, result: userResult, summary }, [...files, ...frameFiles, ...reportFiles], summaryJson);
+  if (framesDir) await removeStaleFrames(join(outDir, framesDir), frames);
+  const frameSet = new Set(frameFiles.map((f) => join(outDir, f.path)));
+  return {
+    scenario,
+    outDir,
+    result: userResult,
+    summary,
+    files: written.filter((f) => !frameSet.has(f)),
+    frameFiles: written.filter((f) => frameSet.has(f)),
+    skippedViews: plan.skipped,
+    wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 },
+  };
 }

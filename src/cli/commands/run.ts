@@ -1,4 +1,4 @@
-// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force]`
+// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report]`
 import type { Command } from 'commander';
 import { basename, extname, join, resolve } from 'node:path';
 import { runScenarioFile } from '../../index.js';
@@ -7,6 +7,8 @@ import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../exit.js';
 import { formatRunReport } from '../format.js';
 import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
+import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';
+import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
 
 export interface RunCommandOptions {
   out?: string;
@@ -14,6 +16,24 @@ export interface RunCommandOptions {
   force?: boolean;
   /** Also solve with the spectral solver and compare (crosscheck.png, summary.json "crossCheck"). */
   crossCheck?: boolean;
+  /** Comma-separated view names (default: waveforms,map). */
+  views?: string;
+  /** Number of animation frames, as typed. */
+  frames?: string;
+  report?: boolean;
+}
+
+/** The views and frame count asked for on the command line; throws UsageError on a bad value. */
+export function viewOptions(opts: RunCommandOptions): { views: ViewName[]; frames: number } {
+  try {
+    return {
+      views: opts.views === undefined ? [...DEFAULT_RUN_VIEWS] : parseViewList(opts.views),
+      frames: opts.frames === undefined ? 0 : parseFrameCount(opts.frames),
+    };
+  } catch (e) {
+    if (e instanceof ViewListError) throw new UsageError(e.message);
+    throw e;
+  }
 }
 
 /** The scenario's file name without its extension: `nets/clock.json` → `clock`. */
@@ -44,7 +64,9 @@ export function outputFolders(files: readonly string[], out: string | undefined)
 export async function runCommand(files: string[], opts: RunCommandOptions, ctx: CliContext): Promise<ExitCode> {
   const { io } = ctx;
   let dirs: string[];
+  let chosen: { views: ViewName[]; frames: number };
   try {
+    chosen = viewOptions(opts);
     dirs = outputFolders(files, opts.out);
   } catch (e) {
     const f = describeFailure(e);
@@ -59,6 +81,9 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
       const report = await runScenarioFile(files[i], dirs[i], {
         force: opts.force,
         extendSummary: cc?.extendSummary,
+        views: chosen.views,
+        frames: chosen.frames,
+        report: opts.report,
         onPhase: (phase) => {
           if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
         },
@@ -66,8 +91,15 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
       const ccFile = cc ? await cc.write(dirs[i]) : undefined;
       if (!opts.quiet) {
         for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
+        for (const s of report.skippedViews) io.err(`warning: ${files[i]}: no ${s.view} view: ${s.reason}\n`);
+        const eye = report.summary.eye as EyeMeasurement | undefined;
+        const thin = eye && eye.windows > 0 ? eyeCoverageNote(eye) : null;
+        if (thin) io.err(`warning: ${files[i]}: ${thin}\n`);
         io.out((i > 0 ? '\n' : '') + formatRunReport(report));
         if (cc?.result) io.out(formatCrossCheck(cc.result, ccFile));
+        if (report.frameFiles.length) {
+          io.out(`  ${'frames'.padEnd(9)}  ${report.frameFiles.length} PNG frames in ${join(dirs[i], 'frames')}\n`);
+        }
       }
       codes.push(EXIT.ok);
     } catch (e) {
@@ -84,9 +116,12 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
 export function registerRunCommand(program: Command, ctx: CliContext): void {
   program
     .command('run')
-    .summary('simulate scenarios; write probes.csv, waveforms.png and summary.json')
+    .summary('simulate scenarios; write probes.csv, summary.json and the views as PNG')
     .description(
-      'Simulate each scenario and write probes.csv, waveforms.png and summary.json into its output folder.\n' +
+      'Simulate each scenario and write probes.csv, summary.json and one PNG per view into its output folder.\n' +
+        'Views: ' +
+        VIEW_NAMES.map((v) => `${v} (${VIEW_DESCRIPTIONS[v]})`).join('; ') +
+        '.\n' +
         'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
     )
     .argument('<scenario...>', 'scenario files (JSON or YAML)')
@@ -94,6 +129,9 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')
     .option('--cross-check', 'also solve the net with the independent spectral solver: print the largest difference per probe (% of swing), write crosscheck.png and a crossCheck section in summary.json')
+    .option('--views <list>', `views to draw, comma-separated from ${VIEW_NAMES.join(', ')} or all (default ${DEFAULT_RUN_VIEWS.join(',')})`)
+    .option('--frames <n>', 'also write N PNG frames of the voltage along the route to frames/')
+    .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')
     .action(async (files: string[], opts: RunCommandOptions) => {
       ctx.exitCode = await runCommand(files, opts, ctx);
     });

@@ -35,14 +35,14 @@ const visible = (dir: string) => readdirSync(dir).filter((f) => f !== 'node_modu
 
 // Each spawn starts Node and tsx afresh (a few seconds on a busy 2-core machine).
 describe('ladderwave run (spawned)', { timeout: 120_000 }, () => {
-  it('runs a small scenario into out/<name>, exits 0 and writes the three files', async () => {
+  it('runs a small scenario into out/<name>, exits 0 and writes the CSV, the summary and the default views', async () => {
     const cwd = workDir();
     const file = writeScenario(cwd, 'small.json', SMALL);
     const r = await ladderwave(['run', 'small.json'], cwd);
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const out = join(cwd, 'out', 'small');
-    expect(readdirSync(out).sort()).toEqual(['probes.csv', 'summary.json', 'waveforms.png']);
+    expect(readdirSync(out).sort()).toEqual(['map.png', 'probes.csv', 'summary.json', 'waveforms.png']); // default views: waveforms, map
 
     const csv = readFileSync(join(out, 'probes.csv'), 'utf8').trimEnd().split('\n');
     expect(csv[0]).toBe('time_s,tx,mid,rx');
@@ -71,7 +71,7 @@ describe('ladderwave run (spawned)', { timeout: 120_000 }, () => {
     const r = await ladderwave(['run', 'a.json', 'b.yaml', '--out', 'results', '--quiet'], cwd);
     expect(r).toEqual({ code: 0, stdout: '', stderr: '' });
     expect(readdirSync(join(cwd, 'results')).sort()).toEqual(['a', 'b']);
-    expect(readdirSync(join(cwd, 'results', 'b')).sort()).toEqual(['probes.csv', 'summary.json', 'waveforms.png']);
+    expect(readdirSync(join(cwd, 'results', 'b')).sort()).toEqual(['map.png', 'probes.csv', 'summary.json', 'waveforms.png']);
     expect(visible(cwd).sort()).toEqual(['a.json', 'b.yaml', 'results']);
   });
 

@@ -1,0 +1,120 @@
+// `ladderwave eye SCENARIO [--probe NAME] [--out DIR] [--vih V --vil V | --thresholds PRESET] [--sample-at P]`
+import type { Command } from 'commander';
+import { join } from 'node:path';
+import { resolveThresholds } from '../../measure/index.js';
+import { EyeRequestError, eyeScenarioFile } from '../../output/eye.js';
+import { formatProblem } from '../../scenario/problems.js';
+import { formatSI, parseQuantity } from '../../units.js';
+import type { CliContext } from '../context.js';
+import { describeFailure, EXIT, UsageError, type ExitCode } from '../exit.js';
+import { scenarioName } from './run.js';
+
+export interface EyeCommandOptions {
+  probe?: string;
+  out?: string;
+  vih?: string;
+  vil?: string;
+  thresholds?: string;
+  sampleAt?: string;
+  quiet?: boolean;
+  force?: boolean;
+}
+
+/** Default output folder: out/<scenario name>-eye (apart from the run's folder, whose run is shorter). */
+export function eyeOutputFolder(file: string, out: string | undefined): string {
+  return out ?? join('out', `${scenarioName(file)}-eye`);
+}
+
+function volts(text: string, option: string): number {
+  const q = parseQuantity(text, 'voltage');
+  if (!q.ok) throw new UsageError(`${option} '${text}': expected ${q.expected}`);
+  return q.value;
+}
+
+/** Thresholds and sampling phase from the options; throws UsageError. */
+export function eyeSettings(opts: EyeCommandOptions): { thresholds?: { vih: number; vil: number }; samplingPhase?: number } {
+  const out: { thresholds?: { vih: number; vil: number }; samplingPhase?: number } = {};
+  const explicit = opts.vih !== undefined || opts.vil !== undefined;
+  if (explicit && opts.thresholds !== undefined) throw new UsageError('give either --thresholds or --vih and --vil, not both');
+  if (explicit) {
+    if (opts.vih === undefined || opts.vil === undefined) throw new UsageError('--vih and --vil go together');
+    const vih = volts(opts.vih, '--vih');
+    const vil = volts(opts.vil, '--vil');
+    if (!(vil <= vih)) throw new UsageError(`--vil (${opts.vil}) must not be above --vih (${opts.vih})`);
+    out.thresholds = { vih, vil };
+  } else if (opts.thresholds !== undefined) {
+    try {
+      const t = resolveThresholds(opts.thresholds.trim().toLowerCase());
+      out.thresholds = { vih: t.vih, vil: t.vil };
+    } catch (e) {
+      throw new UsageError(`--thresholds: ${(e as Error).message}`);
+    }
+  }
+  if (opts.sampleAt !== undefined) {
+    const m = /^\s*([0-9]*\.?[0-9]+)\s*%\s*$/.exec(opts.sampleAt);
+    const p = m ? Number(m[1]) / 100 : NaN;
+    if (!(p >= 0 && p <= 1)) throw new UsageError(`--sample-at '${opts.sampleAt}': expected a share of the unit interval from 0% to 100%, e.g. 50%`);
+    out.samplingPhase = p;
+  }
+  return out;
+}
+
+export async function eyeCommand(file: string, opts: EyeCommandOptions, ctx: CliContext): Promise<ExitCode> {
+  const { io } = ctx;
+  let release: (() => void) | undefined;
+  try {
+    const settings = eyeSettings(opts);
+    const outDir = eyeOutputFolder(file, opts.out);
+    if (ctx.guardWrites) release = ctx.guardWrites();
+    const r = await eyeScenarioFile(file, outDir, { probe: opts.probe, force: opts.force, ...settings });
+    if (!opts.quiet) {
+      for (const w of r.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
+      const e = r.eye;
+      const si = (v: number | null, unit: string) => (v === null ? '—' : formatSI(v, unit, 4));
+      const lines = [
+        r.net.title || '(untitled)',
+        `  probe      ${r.probe}  (${e.signal === 'clock' ? 'clock' : e.pattern}, UI ${si(e.ui, 's')}, ${e.windows} windows over ${si(r.result.discretization.duration, 's')})`,
+        `  threshold  ${si(e.threshold.level, 'V')}${e.threshold.source === 'vih/vil' ? ` (vil ${si(e.threshold.vil, 'V')}, vih ${si(e.threshold.vih, 'V')})` : ' (50 % of the probe’s levels)'}`,
+        `  sampling   ${si(e.samplingTime, 's')} after each bit starts at the driver (probe delay ${si(e.delay, 's')})`,
+        `  eye        height ${si(e.eyeHeight, 'V')}, width ${si(e.eyeWidth, 's')}${e.open ? '' : '  (closed)'}`,
+        `  wrote      ${r.files.join('\n             ')}`,
+      ];
+      io.out(lines.join('\n') + '\n');
+    }
+    return EXIT.ok;
+  } catch (e) {
+    if (e instanceof EyeRequestError) {
+      io.err(`${file}: ${e.message}\n`);
+      return EXIT.badInput;
+    }
+    const f = describeFailure(e, file);
+    io.err(f.lines.map((l) => `${e instanceof UsageError ? 'ladderwave eye: ' : ''}${l}\n`).join(''));
+    return f.code;
+  } finally {
+    release?.();
+  }
+}
+
+export function registerEyeCommand(program: Command, ctx: CliContext): void {
+  program
+    .command('eye')
+    .summary('eye diagram of a bits or clock signal: eye.png and summary.json with eye height and width')
+    .description(
+      'Simulate the scenario long enough for its whole bit pattern (PRBS-7 at least once; 64 unit intervals of a clock)\n' +
+        'plus the route’s settle time, fold the probe’s waveform into windows of two unit intervals, and write eye.png\n' +
+        'and summary.json (section "eye": eye height, eye width, sampling instant, threshold).\n' +
+        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
+    )
+    .argument('<scenario>', 'scenario file (JSON or YAML) whose driver sends bits or a clock')
+    .option('-p, --probe <name>', 'probe to fold (default: the probe at the receiver)')
+    .option('-o, --out <dir>', 'output folder (default out/<scenario name>-eye)')
+    .option('--vih <volts>', 'logic high threshold, e.g. 2V (with --vil; default: the 50 % level)')
+    .option('--vil <volts>', 'logic low threshold, e.g. 0.8V (with --vih)')
+    .option('--thresholds <preset>', 'logic thresholds from a preset, e.g. lvcmos33')
+    .option('--sample-at <share>', 'sampling instant as a share of the unit interval after the crossing (default 50%)')
+    .option('-q, --quiet', 'print nothing except errors')
+    .option('-f, --force', 'run even if the run would exceed a size limit')
+    .action(async (file: string, opts: EyeCommandOptions) => {
+      ctx.exitCode = await eyeCommand(file, opts, ctx);
+    });
+}
