@@ -31,3 +31,10 @@ export { crossing50, probeStats, type Crossing50, type ProbeStats } from './outp
 export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
 export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';
 export { toolInfo, type ToolInfo } from './output/tool.js';
+
+// Views, the eye and the HTML report (renderers load on first use).
+export { VIEW_NAMES, DEFAULT_RUN_VIEWS, VIEW_FILES, parseViewList, planViews, type ViewName, type ViewPlan } from './views/select.js';
+export { measureEye, eyeRunDuration, eyeTiming, type EyeInput, type EyeMeasurement } from './views/eye.js';
+export { eyeScenarioFile, EyeRequestError, EYE_FILES, type EyeRunOptions, type EyeRunReport } from './output/eye.js';
+export { writeRunFiles, selectProbes, type OutputFile } from './output/run.js';
+export { buildReport, REPORT_FILE, type ReportImage, type ReportInput } from './report/index.js';
