@@ -1,7 +1,7 @@
 // DC operating point of the ladder, the starting state of every run: inductors are shorts,
 // capacitors open, the source at its initial value. The chain is solved exactly with two sweeps of
 // Thevenin equivalents (one from each end), so ideal sources and zero-ohm parts need no special matrix.
-import { NetError } from './errors.js';
+import { OPEN, parallel, type Thevenin } from './thevenin.js';
 import type { Ladder } from './ladder.js';
 
 export interface DcState {
@@ -13,28 +13,6 @@ export interface DcState {
   lumped: Float64Array;
 }
 
-/** A Thevenin equivalent; r = Infinity is an open circuit (e is then 0). */
-interface Thevenin {
-  e: number;
-  r: number;
-}
-
-const OPEN: Thevenin = { e: 0, r: Infinity };
-
-function parallel(a: Thevenin, b: Thevenin, where: string): Thevenin {
-  if (a.r === Infinity) return b;
-  if (b.r === Infinity) return a;
-  if (a.r === 0 && b.r === 0) {
-    if (Math.abs(a.e - b.e) > 1e-12 * (1 + Math.abs(a.e) + Math.abs(b.e))) {
-      throw new NetError([{ path: where, message: `two ideal sources or rails (${a.e} V and ${b.e} V) are tied together by zero-ohm paths` }]);
-    }
-    return a;
-  }
-  if (a.r === 0) return a;
-  if (b.r === 0) return b;
-  const s = a.r + b.r;
-  return { e: (a.e * b.r + b.e * a.r) / s, r: (a.r * b.r) / s };
-}
 
 function series(a: Thevenin, r: number): Thevenin {
   return a.r === Infinity || r === Infinity ? OPEN : { e: a.e, r: a.r + r };

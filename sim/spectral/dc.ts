@@ -10,34 +10,12 @@
 // A Thevenin source (E, R) seen through a two-port [A B; C D] becomes
 //   E' = E/(A + R·C),  R' = (B + R·D)/(A + R·C),
 // and an open end (R = ∞) becomes (0, D/C). Lines are symmetric, so the same map serves both sweeps.
-import { NetError } from '../errors.js';
+import { OPEN, parallel, type Thevenin } from '../thevenin.js';
 import type { Net, Part } from '../model.js';
 import { signalFunction } from '../signals.js';
 import { compileChain, type Chain, type ChainItem } from './chain.js';
 import { perLength } from './per-length.js';
 
-/** A Thevenin equivalent; r = Infinity is an open circuit (e is then 0). */
-interface Thevenin {
-  e: number;
-  r: number;
-}
-
-const OPEN: Thevenin = { e: 0, r: Infinity };
-
-function parallel(a: Thevenin, b: Thevenin, where: string): Thevenin {
-  if (a.r === Infinity) return b;
-  if (b.r === Infinity) return a;
-  if (a.r === 0 && b.r === 0) {
-    if (Math.abs(a.e - b.e) > 1e-12 * (1 + Math.abs(a.e) + Math.abs(b.e))) {
-      throw new NetError([{ path: where, message: `two ideal sources or rails (${a.e} V and ${b.e} V) are tied together by zero-ohm paths` }]);
-    }
-    return a;
-  }
-  if (a.r === 0) return a;
-  if (b.r === 0) return b;
-  const s = a.r + b.r;
-  return { e: (a.e * b.r + b.e * a.r) / s, r: (a.r * b.r) / s };
-}
 
 /** tanh(u)/u, with its series near 0. */
 function tanhc(u: number): number {

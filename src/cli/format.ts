@@ -1,23 +1,9 @@
 // Human-readable text for the terminal: aligned tables and the per-scenario run summary.
 import type { RunReport } from '../output/run.js';
 import { formatSI } from '../units.js';
+import { alignColumns as table } from '../text/columns.js';
 
-export type Align = 'l' | 'r';
-
-/** Pads the cells of `rows` into aligned columns separated by `gap` spaces; trailing spaces trimmed. */
-export function table(rows: readonly (readonly string[])[], align: readonly Align[] = [], gap = 2): string[] {
-  const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, j) => (widths[j] = Math.max(widths[j] ?? 0, [...cell].length)));
-  return rows.map((row) =>
-    row
-      .map((cell, j) => {
-        const pad = ' '.repeat(widths[j] - [...cell].length);
-        return align[j] === 'r' ? pad + cell : cell + pad;
-      })
-      .join(' '.repeat(gap))
-      .trimEnd(),
-  );
-}
+export { alignColumns as table, type Align } from '../text/columns.js';
 
 /** Label column on the left, content lines on the right; continuation lines indented under the content. */
 function section(label: string, lines: string[], labelWidth: number): string[] {

@@ -2,24 +2,10 @@
 // as JSON (the same numbers in SI units).
 import { INCH } from '../../sim/lines/constants.js';
 import { formatSI } from '../units.js';
+import { alignColumns as alignRows, type Align } from '../text/columns.js';
 import type { FrequencyRow, LineReport } from './evaluate.js';
 
-type Align = 'l' | 'r';
-
-/** Pads the cells of `rows` into aligned columns (two spaces between), trailing spaces trimmed. */
-export function alignRows(rows: readonly (readonly string[])[], align: readonly Align[] = []): string[] {
-  const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, j) => (widths[j] = Math.max(widths[j] ?? 0, [...cell].length)));
-  return rows.map((row) =>
-    row
-      .map((cell, j) => {
-        const pad = ' '.repeat(widths[j] - [...cell].length);
-        return (align[j] ?? 'l') === 'r' ? pad + cell : cell + pad;
-      })
-      .join('  ')
-      .trimEnd(),
-  );
-}
+export { alignColumns as alignRows } from '../text/columns.js';
 
 const si = (v: number, unit: string, digits = 4) => (Number.isFinite(v) ? formatSI(v, unit, digits) : `${v > 0 ? '' : '−'}∞ ${unit}`);
 const num = (v: number, digits = 4) => (v === 0 ? '0' : Math.abs(v) >= 1e-3 && Math.abs(v) < 1e6 ? String(Number(v.toPrecision(digits))) : v.toExponential(digits - 1));

@@ -7,7 +7,7 @@
 // input leaves nothing behind. The files are then written to temporary names and renamed
 // together, summary.json last; if writing fails, the temporary files (and a folder this run
 // created) are removed.
-import { readdir, readFile, mkdir, rmdir, unlink } from 'node:fs/promises';
+import { readdir, mkdir, rmdir, unlink } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
 import type { Net } from '../../sim/model.js';
 import ndarray from 'ndarray';
@@ -15,8 +15,8 @@ import type { ProbeRecord, SimResult } from '../../sim/result.js';
 import { simulate, type SimulateOptions } from '../../sim/simulate.js';
 import type { ViewName } from '../views/select.js';
 import type { EyeViewOptions } from '../views/draw.js';
-import { checkScenario } from '../scenario/load.js';
-import { ScenarioError, type Problem } from '../scenario/problems.js';
+import { readScenario } from '../scenario/load.js';
+import type { Problem } from '../scenario/problems.js';
 import { AtomicBatch } from './atomic.js';
 import { probeRows, writeCsv } from './csv.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
@@ -48,19 +48,8 @@ export interface LoadedScenario {
  * Throws ScenarioError listing every problem, including an unreadable file.
  */
 export async function readScenarioFile(file: string): Promise<LoadedScenario> {
-  let bytes: Buffer;
-  try {
-    bytes = await readFile(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'a directory' : (code ?? String(e));
-    throw new ScenarioError([{ file, path: '', value: file, expected: `a readable scenario file (${why})` }]);
-  }
-  let text = bytes.toString('utf8');
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // byte-order mark
-  const checked = checkScenario(text, file);
-  if (!checked.net) throw new ScenarioError(checked.problems, checked.warnings);
-  return { file, net: checked.net, sha256: sha256Hex(bytes), warnings: checked.warnings };
+  const { net, bytes, warnings } = await readScenario(file);
+  return { file, net, sha256: sha256Hex(bytes), warnings };
 }
 
 export type RunPhase = 'load' | 'simulate' | 'render' | 'write';

@@ -52,19 +52,20 @@ export function scenarioFromValue(value: unknown, fileName = '(scenario)'): Net 
   return orThrow(checkScenarioValue(value, fileName));
 }
 
-/** Read and check a scenario file and also hand back its text (for hashing) and warnings. */
-export async function readScenario(path: string): Promise<{ net: Net; text: string; warnings: Problem[] }> {
-  let text: string;
+/** Read and check a scenario file and also hand back its bytes (for hashing), text and warnings. */
+export async function readScenario(path: string): Promise<{ net: Net; text: string; bytes: Buffer; warnings: Problem[] }> {
+  let bytes: Buffer;
   try {
-    text = await readFile(path, 'utf8');
+    bytes = await readFile(path);
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
     const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'a directory' : code ?? String(e);
     throw new ScenarioError([{ file: path, path: '', value: path, expected: `a readable scenario file (${why})` }]);
   }
+  let text = bytes.toString('utf8');
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // byte-order mark
   const r = checkScenario(text, path);
-  return { net: orThrow(r), text, warnings: r.warnings };
+  return { net: orThrow(r), text, bytes, warnings: r.warnings };
 }
 
 /** Read a scenario file (JSON or YAML) → Net; throws ScenarioError listing every problem. */

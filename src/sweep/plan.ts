@@ -4,12 +4,11 @@
 //
 // Point numbering: points are numbered from 0. In a grid the first --vary is the outermost loop
 // (it changes slowest) and the last the innermost. In a Monte Carlo run point k is sample k.
-import { readFile } from 'node:fs/promises';
 import type { Net } from '../../sim/model.js';
 import type { CheckLimit } from '../measure/index.js';
 import { sha256Hex } from '../output/summary.js';
 import { checkBands, columnName, metricColumns, type MetricColumn } from './columns.js';
-import { checkScenario, checkScenarioValue } from '../scenario/load.js';
+import { checkScenarioValue, readScenario } from '../scenario/load.js';
 import { parseText, toPlain } from '../scenario/parse.js';
 import { Problems, ScenarioError, type Problem } from '../scenario/problems.js';
 import { concretePath, PathError, withValues } from './paths.js';
@@ -82,20 +81,9 @@ export function receiverProbe(net: Net): string {
 
 /** Reads and checks the scenario; the raw value and hash come from the same bytes. */
 export async function loadScenarioValue(file: string): Promise<{ value: unknown; net: Net; sha256: string; warnings: Problem[] }> {
-  let bytes: Buffer;
-  try {
-    bytes = await readFile(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'a directory' : (code ?? String(e));
-    throw new ScenarioError([{ file, path: '', value: file, expected: `a readable scenario file (${why})` }]);
-  }
-  let text = bytes.toString('utf8');
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  const checked = checkScenario(text, file);
-  if (!checked.net) throw new ScenarioError(checked.problems, checked.warnings);
+  const { net, text, bytes, warnings } = await readScenario(file);
   const root = parseText(text, new Problems(file));
-  return { value: toPlain(root), net: checked.net, sha256: sha256Hex(bytes), warnings: checked.warnings };
+  return { value: toPlain(root), net, sha256: sha256Hex(bytes), warnings };
 }
 
 function resolvePlotMetric(metric: string | undefined, objectiveKey: string | undefined, columns: readonly MetricColumn[], fallback: string): string {
