@@ -2,7 +2,7 @@
 // optionally compare with (or update) golden waveforms. One report per scenario, in argument order.
 import { mkdir } from 'node:fs/promises';
 import { simulate } from '../../sim/simulate.js';
-import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../cli/exit.js';
+import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
 import { probeRows, writeCsv } from '../output/csv.js';
 import { readScenarioFile } from '../output/run.js';

@@ -1,6 +1,6 @@
 // What every command gets from the program: where to print, and process-level hooks.
 import type { CliIO } from './io.js';
-import type { ExitCode } from './exit.js';
+import type { ExitCode } from '../exit-codes.js';
 
 export interface CliContext {
   io: CliIO;

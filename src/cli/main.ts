@@ -4,7 +4,7 @@
 // printed and the exit code is 1.
 import { removePendingTempFilesSync } from '../output/atomic.js';
 import { runCli } from './program.js';
-import { describeFailure } from './exit.js';
+import { describeFailure } from '../exit-codes.js';
 
 /** While outputs are being written, Ctrl-C or SIGTERM first removes the temporary files. */
 function guardWrites(): () => void {

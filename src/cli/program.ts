@@ -11,7 +11,7 @@ import { registerCheckCommand } from './commands/check.js';
 import { registerSweepCommand } from './commands/sweep.js';
 import { registerMergeCommand } from './commands/merge.js';
 import type { CliContext } from './context.js';
-import { EXIT, type ExitCode } from './exit.js';
+import { EXIT, type ExitCode } from '../exit-codes.js';
 import { processIO, type CliIO } from './io.js';
 
 export function createProgram(ctx: CliContext): Command {

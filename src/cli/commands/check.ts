@@ -7,7 +7,7 @@ import { expandScenarioArgs, formatCheckTable, goldenNameClashes, runChecks, toJ
 import { writeFileAtomic } from '../../output/atomic.js';
 import { parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
-import { EXIT, type ExitCode } from '../exit.js';
+import { EXIT, type ExitCode } from '../../exit-codes.js';
 
 export interface CheckCommandOptions {
   junit?: string;

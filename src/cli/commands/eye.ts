@@ -6,7 +6,7 @@ import { EyeRequestError, eyeScenarioFile } from '../../output/eye.js';
 import { formatProblem } from '../../scenario/problems.js';
 import { formatSI, parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, UsageError, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
 import { scenarioName } from './run.js';
 
 export interface EyeCommandOptions {

@@ -8,7 +8,7 @@ import { DEFAULT_REPORT_FREQUENCIES, evaluateLine, formatLineReports, GEOMETRY_O
 import { formatProblem, type Problem } from '../../scenario/problems.js';
 import { POSITIVE, parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, UsageError, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
 
 export interface LineCommandOptions {
   item?: string[];

@@ -4,7 +4,7 @@ import type { Command } from 'commander';
 import { defaultSweepFolder, mergeSweeps, readSweepFolder } from '../../sweep/index.js';
 import { formatSweepReport } from '../../sweep/report.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, type ExitCode } from '../../exit-codes.js';
 import { sweepUsageError } from './sweep.js';
 
 export interface MergeCommandOptions {

@@ -4,7 +4,7 @@ import { basename, extname, join, resolve } from 'node:path';
 import { runScenarioFile } from '../../index.js';
 import { formatProblem } from '../../scenario/problems.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../../exit-codes.js';
 import { formatRunReport } from '../format.js';
 import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
 import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';

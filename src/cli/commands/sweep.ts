@@ -5,7 +5,7 @@ import type { Command } from 'commander';
 import { createProgress, defaultJobs, defaultSweepFolder, parseShard, PickError, runSweep, SweepInputError, SweepSpecError } from '../../sweep/index.js';
 import { formatSweepReport } from '../../sweep/report.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, type ExitCode } from '../../exit-codes.js';
 
 export interface SweepCommandOptions {
   vary?: string[];

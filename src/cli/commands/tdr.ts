@@ -6,7 +6,7 @@ import { parseQuantity, POSITIVE, formatSI } from '../../units.js';
 import { segmentReadings } from '../../views/tdr.js';
 import { DEFAULT_TDR_RISE, runTdrFile, type TdrReport } from '../../views/tdr-run.js';
 import type { CliContext } from '../context.js';
-import { describeFailure, EXIT, UsageError, type ExitCode } from '../exit.js';
+import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
 import { table } from '../format.js';
 import { scenarioName } from './run.js';
 

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { NetError, RunRefused } from '../../../sim/errors.js';
-import { outputFolders, scenarioName } from '../../../src/cli/commands/run.js';
-import { describeFailure, EXIT, UsageError, worstExitCode } from '../../../src/cli/exit.js';
-import { OutputError } from '../../../src/output/run.js';
-import { ScenarioError } from '../../../src/scenario/problems.js';
+import { NetError, RunRefused } from '../../sim/errors.js';
+import { outputFolders, scenarioName } from '../../src/cli/commands/run.js';
+import { describeFailure, EXIT, UsageError, worstExitCode } from '../../src/exit-codes.js';
+import { OutputError } from '../../src/output/run.js';
+import { ScenarioError } from '../../src/scenario/problems.js';
 import { join } from 'node:path';
 
 describe('exit codes and error lines', () => {

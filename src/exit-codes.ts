@@ -5,9 +5,9 @@
 //   2  bad input or usage: an invalid scenario (every problem listed), a net that cannot be
 //      simulated, a bad command line, or outputs that cannot be written
 //   3  refused: the run would exceed a size limit; --force overrides
-import { NetError, RunRefused } from '../../sim/errors.js';
-import { OutputError } from '../output/run.js';
-import { formatProblem, ScenarioError } from '../scenario/problems.js';
+import { NetError, RunRefused } from '../sim/errors.js';
+import { OutputError } from './output/run.js';
+import { formatProblem, ScenarioError } from './scenario/problems.js';
 
 export const EXIT = { ok: 0, bug: 1, badInput: 2, refused: 3 } as const;
 export type ExitCode = (typeof EXIT)[keyof typeof EXIT];
