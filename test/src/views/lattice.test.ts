@@ -2,8 +2,8 @@
 // - launched amplitude V⁺ = V_S·Z0/(R_S + Z0) and Γ = (Z − Z0)/(Z + Z0), transmission 1 + Γ at a plain
 //   junction (Pozar, Microwave Engineering, ch. 2; Johnson & Graham, High-Speed Digital Design, ch. 4);
 // - a series resistor R between lines Z1 and Z2: Γ = (R + Z2 − Z1)/(R + Z2 + Z1), τ = (1 + Γ)·Z2/(R + Z2);
-//   a shunt resistor R: Γ = (R‖Z2 − Z1)/(R‖Z2 + Z1), τ = 1 + Γ (Kirchhoff's laws on the junction; the same
-//   formulas are listed with the "TDR Simulator" module 5.5 of em.emedu.org.tw);
+//   a shunt resistor R: Γ = (R‖Z2 − Z1)/(R‖Z2 + Z1), τ = 1 + Γ (Kirchhoff's laws on the junction, with the
+//   line beyond it seen as its Z0: the load-reflection formula of Pozar ch. 2 applied to R + Z2 and R‖Z2);
 // - the source-end plateaus of C. R. Paul's FDTD worked example (Analysis of Multiconductor Transmission
 //   Lines, FDTD chapter) by superposing the step lattice with its delayed negative;
 // - the settled level: the DC voltage divider (Ohm's law);
@@ -52,7 +52,7 @@ describe('coefficients against the textbook formulas', () => {
     ]);
   });
 
-  it('series and shunt resistors at a junction (Kirchhoff; em.emedu.org.tw TDR module 5.5)', () => {
+  it('series and shunt resistors at a junction (Kirchhoff; Pozar ch. 2 load reflection)', () => {
     const z1 = 50, z2 = 75, r = 20;
     const series = supported(
       net({ signal: stepSignal(1, 50e-12), rs: 50, route: [line('a', z1, 6e-9, 0.1), { kind: 'series', name: 'r', part: part({ r }) }, line('b', z2, 6e-9, 0.1)] }),

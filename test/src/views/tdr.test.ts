@@ -4,10 +4,9 @@
 //   (± one resolution), distance taken at each segment's own velocity;
 // - resolution d_min = v·t_r/4: discontinuities closer than half the rise time in round-trip time merge
 //   (HP 54753A TDR plug-in user's guide, "TDR Fundamentals", rise time and distance resolution);
-// - a shunt capacitance C on a matched line reflects ρ(t) whose area is −Z0·C/2. Source: the area
-//   formula S = V⁺·Z0·C/2·(1 − e^(−2Δt/(Z0·C))) for the TDR of a capacitive discontinuity in the
-//   "Advanced SI/PI" class notebooks (github.com/cram869/adv_sipi_class_notebooks), whose limit for a
-//   long window is V⁺·Z0·C/2. Derivation (ours, marked as such): at the junction the incoming line is
+// - a shunt capacitance C on a matched line reflects ρ(t) whose area is −Z0·C/2 (the capacitive dip of
+//   TDR application notes, e.g. Bogatin, Signal and Power Integrity — Simplified, TDR of a capacitive
+//   discontinuity: from memory, not confirmed here). Derivation (ours, marked as such): at the junction the incoming line is
 //   a Thevenin source 2V⁺ behind Z0 and the outgoing line a load Z0, so the node charges as
 //   V⁺(1 − e^(−t/τ)) with τ = Z0·C/2; the reflected wave is V − V⁺ = −V⁺e^(−t/τ), whose integral is
 //   −V⁺·Z0·C/2. A finite rise time convolves ρ with a unit-area kernel, so the area is unchanged.
