@@ -110,7 +110,12 @@ export async function runPoints(plan: SweepPlan, indices: readonly number[], opt
       workers.push(w);
       w.on('message', (m: { type: string; index: number; row?: SweepRow; error?: WireError; message?: string }) => {
         if (settled) return;
-        if (m.type === 'ready') dispatch(w);
+        // Two points in hand: the worker starts its next point at once instead of waiting for the
+        // main thread, which only takes in results between its own points.
+        if (m.type === 'ready') {
+          dispatch(w);
+          dispatch(w);
+        }
         else if (m.type === 'row') {
           store(m.index, m.row!);
           if (!settled) dispatch(w);
