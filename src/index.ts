@@ -26,7 +26,8 @@ export {
   type RunPhase,
   type RunReport,
 } from './output/run.js';
-export { csvChunks, csvHeader, probeRecordToCsv, probeRows, writeCsv } from './output/csv.js';
+export { csvChunks, csvHeader, probeRecordToCsv, writeCsv } from './output/csv.js';
+export { probeRows } from './probe-rows.js';
 export { crossing50, probeStats, type Crossing50, type ProbeStats } from './output/crossing.js';
 export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
 export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';

@@ -1,7 +1,7 @@
 // Scenario-level checks: measure a run, evaluate the scenario's checks, compare with golden
 // waveforms, and report (terminal table, JUnit XML, JSON, Markdown). See docs/checks-and-sweeps.md.
-export { measureNet, sourceWaveform, type NetMeasurements } from './measure.js';
-export { addMeasurementSections, type ChecksSection } from './summary.js';
+export { measureNet, sourceWaveform, type NetMeasurements } from '../output/measure-net.js';
+export { addMeasurementSections, type ChecksSection } from '../output/measurement-sections.js';
 export { expandScenarioArgs, globFiles, isGlob, segmentRegExp, SCENARIO_EXTENSIONS, type ExpandedFiles } from './files.js';
 export {
   compareWaveform,

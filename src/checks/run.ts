@@ -4,11 +4,12 @@ import { mkdir } from 'node:fs/promises';
 import { simulate } from '../../sim/simulate.js';
 import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
-import { probeRows, writeCsv } from '../output/csv.js';
+import { writeCsv } from '../output/csv.js';
+import { probeRows } from '../probe-rows.js';
 import { readScenarioFile } from '../output/run.js';
 import { netChecks } from '../scenario/checks.js';
 import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions } from './golden.js';
-import { measureNet } from './measure.js';
+import { measureNet } from '../output/measure-net.js';
 
 export type Verdict = 'pass' | 'fail' | 'error';
 

@@ -5,6 +5,7 @@
 // i·dtSample, never accumulated, so it carries no drift. Long records are produced in chunks of
 // rows so that no single string grows beyond a few megabytes.
 import type { ProbeRecord } from '../../sim/result.js';
+import { probeRows } from '../probe-rows.js';
 import type { ChunkSink } from './atomic.js';
 
 /** Rows per chunk: about 25 bytes a value, so a few MB per chunk for a handful of probes. */
@@ -24,23 +25,6 @@ export function formatNumber(x: number): string {
   return String(x);
 }
 
-/** Rows of the record as probe-major views: one Float64Array of samples per probe. */
-export function probeRows(record: ProbeRecord): Float64Array[] {
-  const v = record.values;
-  const [probes, samples] = v.shape;
-  const rows: Float64Array[] = [];
-  for (let p = 0; p < probes; p++) {
-    if (v.stride[1] === 1) {
-      const start = v.offset + p * v.stride[0];
-      rows.push(v.data.subarray(start, start + samples));
-    } else {
-      const row = new Float64Array(samples);
-      for (let i = 0; i < samples; i++) row[i] = v.get(p, i);
-      rows.push(row);
-    }
-  }
-  return rows;
-}
 
 /** The CSV text in chunks: first the header, then blocks of `rowsPerChunk` rows. */
 export function* csvChunks(record: ProbeRecord, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Generator<string> {

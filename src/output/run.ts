@@ -18,9 +18,10 @@ import type { EyeViewOptions } from '../views/draw.js';
 import { readScenario } from '../scenario/load.js';
 import type { Problem } from '../scenario/problems.js';
 import { AtomicBatch } from './atomic.js';
-import { probeRows, writeCsv } from './csv.js';
+import { writeCsv } from './csv.js';
+import { probeRows } from '../probe-rows.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
-import { addMeasurementSections } from '../checks/summary.js';
+import { addMeasurementSections } from './measurement-sections.js';
 
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
@@ -244,7 +245,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     discretization: result.discretization,
     record,
   });
-  // Per-probe measurements and the scenario's checks (src/checks/summary.ts).
+  // Per-probe measurements and the scenario's checks (src/output/measurement-sections.ts).
   addMeasurementSections(summary, net, userResult);
   if (plan.views.includes('eye')) {
     const { eyeInputFor } = await import('../views/draw.js');

@@ -8,7 +8,7 @@
 // bytes.
 import { createHash } from 'node:crypto';
 import type { Discretization, ProbeRecord } from '../../sim/result.js';
-import { probeRows } from './csv.js';
+import { probeRows } from '../probe-rows.js';
 import { probeStats, type ProbeStats } from './crossing.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 

@@ -22,7 +22,7 @@ import {
 } from '../../sim/lines/freq-model.js';
 import { COPPER_CONDUCTIVITY } from '../../sim/lines/constants.js';
 import { NON_NEGATIVE, POSITIVE, SPEED_OF_LIGHT, formatSI } from '../units.js';
-import type { LineForm, LineParams } from './lines.js'; // types only: lines.ts holds the table this file adds to
+import type { LineForm, LineParams } from './line-form.js';
 import type { SrcNode } from './parse.js';
 import type { Pos } from './problems.js';
 import { Obj, type QuantitySpec, type Reader } from './read.js';

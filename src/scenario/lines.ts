@@ -9,31 +9,13 @@
 // Losses "r" (ohm/m) and "g" (S/m) are accepted on every form whose `losses` is not false.
 import type { LineRLGC } from '../../sim/model.js';
 import { NON_NEGATIVE, POSITIVE, SPEED_OF_LIGHT } from '../units.js';
-import type { Obj, Reader } from './read.js';
+import type { Reader } from './read.js';
+import type { LineForm } from './line-form.js';
 import { toPlain, type SrcNode } from './parse.js';
 import type { Pos } from './problems.js';
 import { WIDEBAND_FORMS } from './line-geometry.js';
 
-/**
- * What a form's builder returns: L' and C' at least; R' and G' when the form determines them itself
- * (added to any "r"/"g" keys); any further LineRLGC fields a form fills in are passed through.
- */
-export type LineParams = Omit<LineRLGC, 'r' | 'g'> & { r?: number; g?: number };
-
-export interface LineForm {
-  /** Short name for messages: "z0+delay". */
-  id: string;
-  /** Keys that select this form; all must be present. */
-  required: readonly string[];
-  /** Further keys this form accepts (beyond "r" and "g"). */
-  optional?: readonly string[];
-  /** Whether the common loss keys "r" and "g" apply (default true). */
-  losses?: boolean;
-  /** An example of this form, for messages. */
-  example: string;
-  /** Read the form's keys from `o` (problems go through `o`); undefined when any is bad. */
-  build(o: Obj): LineParams | undefined;
-}
+export type { LineForm, LineParams } from './line-form.js';
 
 /** Loss keys accepted on every form (unless the form says otherwise). */
 export const LOSS_KEYS = ['r', 'g'] as const;

@@ -5,7 +5,7 @@
 // (an empty CSV cell) when it cannot be measured (no edge, not settled before the record ends, ...).
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
-import { measureNet } from '../checks/measure.js';
+import { measureNet } from '../output/measure-net.js';
 import { evaluateChecks, formatSI, type CheckLimit, type CheckResult, type CheckSpec, type LimitUnit, type MetricName } from '../measure/index.js';
 import { netChecks, netThresholds } from '../scenario/checks.js';
 

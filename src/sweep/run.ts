@@ -13,7 +13,7 @@
 import { mkdir, readFile } from 'node:fs/promises';
 import { basename, extname, join } from 'node:path';
 import { simulate } from '../../sim/simulate.js';
-import { addMeasurementSections } from '../checks/summary.js';
+import { addMeasurementSections } from '../output/measurement-sections.js';
 import { AtomicBatch } from '../output/atomic.js';
 import { renderResult, writeRunOutputs, OUTPUT_FILES } from '../output/run.js';
 import { buildSummary } from '../output/summary.js';

@@ -2,7 +2,7 @@
 // only. Each view's module is loaded on first use, so a run that draws no view never loads the renderer.
 import type { Net } from '../../sim/model.js';
 import type { ProbeRecord, SimResult } from '../../sim/result.js';
-import { probeRows } from '../output/csv.js';
+import { probeRows } from '../probe-rows.js';
 import { netThresholds } from '../scenario/checks.js';
 import { defaultEyeProbe, eyeInputOf, type EyeInput, type EyeMeasurement } from './eye.js';
 import { VIEW_FILES, type ViewName } from './select.js';

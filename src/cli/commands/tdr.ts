@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { formatProblem } from '../../scenario/problems.js';
 import { parseQuantity, POSITIVE, formatSI } from '../../units.js';
 import { segmentReadings } from '../../views/tdr.js';
-import { DEFAULT_TDR_RISE, runTdrFile, type TdrReport } from '../../views/tdr-run.js';
+import { DEFAULT_TDR_RISE, runTdrFile, type TdrReport } from '../../output/tdr.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
 import { table } from '../format.js';

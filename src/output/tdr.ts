@@ -10,9 +10,9 @@ import type { SimResult } from '../../sim/result.js';
 import { RunRefused } from '../../sim/errors.js';
 import { DEFAULT_LIMITS, type RunLimits } from '../../sim/limits.js';
 import { planRun, simulate } from '../../sim/simulate.js';
-import { AtomicBatch } from '../output/atomic.js';
-import { OutputError, readScenarioFile, type LoadedScenario } from '../output/run.js';
-import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from './tdr.js';
+import { AtomicBatch } from './atomic.js';
+import { OutputError, readScenarioFile, type LoadedScenario } from './run.js';
+import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from '../views/tdr.js';
 
 export const TDR_FILES = { png: 'tdr.png', csv: 'tdr.csv' } as const;
 

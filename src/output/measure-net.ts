@@ -13,7 +13,7 @@ import {
   type CheckSpec,
   type ProbeMeasurements,
 } from '../measure/index.js';
-import { probeRows } from '../output/csv.js';
+import { probeRows } from '../probe-rows.js';
 import { netChecks, netThresholds } from '../scenario/checks.js';
 
 export interface NetMeasurements {

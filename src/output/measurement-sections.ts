@@ -2,9 +2,9 @@
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
 import type { CheckResult } from '../measure/index.js';
-import { addSummarySection, type Summary } from '../output/summary.js';
+import { addSummarySection, type Summary } from './summary.js';
 import { netChecks } from '../scenario/checks.js';
-import { measureNet, type NetMeasurements } from './measure.js';
+import { measureNet, type NetMeasurements } from './measure-net.js';
 
 export interface ChecksSection {
   passed: number;
