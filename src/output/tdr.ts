@@ -10,6 +10,7 @@ import type { SimResult } from '../../sim/result.js';
 import { RunRefused } from '../../sim/errors.js';
 import { DEFAULT_LIMITS, type RunLimits } from '../../sim/limits.js';
 import { planRun, simulate } from '../../sim/simulate.js';
+import { routeDelay } from '../../sim/discretize.js';
 import { AtomicBatch } from './atomic.js';
 import { OutputError, readScenarioFile, type LoadedScenario } from './run.js';
 import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from '../views/tdr.js';
@@ -19,8 +20,16 @@ export const TDR_FILES = { png: 'tdr.png', csv: 'tdr.csv' } as const;
 /** Default 10–90 % rise time of the TDR step: 35 ps, a common bench TDR edge (common practice). */
 export const DEFAULT_TDR_RISE = 35e-12;
 
+/**
+ * The step used when none is given: 35 ps, or the route's one-way delay / 400 on long routes, so a
+ * cable of tens of metres is resolved to a few centimetres in seconds instead of refused.
+ */
+export function defaultTdrRise(net: Net): number {
+  return Math.max(DEFAULT_TDR_RISE, routeDelay(net) / 400);
+}
+
 export interface TdrRunOptions {
-  /** 10–90 % rise time (s); default DEFAULT_TDR_RISE. */
+  /** 10–90 % rise time (s); default defaultTdrRise(net). */
   rise?: number;
   /** Reference impedance (Ω); default the first segment's Z0. */
   z0?: number;
@@ -46,7 +55,7 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
   const t0 = performance.now();
   options.onPhase?.('load');
   const scenario = await readScenarioFile(file);
-  const rise = options.rise ?? DEFAULT_TDR_RISE;
+  const rise = options.rise ?? defaultTdrRise(scenario.net);
   const net = tdrNet(scenario.net, { rise, z0: options.z0 });
   if (!options.force) refuseWithAdvice(net, rise, options.limits);
 

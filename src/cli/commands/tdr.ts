@@ -43,9 +43,9 @@ export function formatTdrReport(r: TdrReport): string {
 
 export async function tdrCommand(file: string, opts: TdrCommandOptions, ctx: CliContext): Promise<ExitCode> {
   const { io } = ctx;
-  let rise: number, z0: number | undefined;
+  let rise: number | undefined, z0: number | undefined;
   try {
-    rise = option(opts.rise, 'time', '--rise') ?? DEFAULT_TDR_RISE;
+    rise = option(opts.rise, 'time', '--rise');
     z0 = option(opts.z0, 'resistance', '--z0');
   } catch (e) {
     const f = describeFailure(e);
@@ -87,7 +87,7 @@ export function registerTdrCommand(program: Command, ctx: CliContext): void {
         'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
     )
     .argument('<scenario>', 'scenario file (JSON or YAML)')
-    .option('-r, --rise <time>', `10–90 % rise time of the step (default ${DEFAULT_TDR_RISE * 1e12} ps)`)
+    .option('-r, --rise <time>', `10–90 % rise time of the step (default ${DEFAULT_TDR_RISE * 1e12} ps, or the route's one-way delay / 400 when that is longer)`)
     .option('-z, --z0 <resistance>', "reference impedance and source resistance (default: the first line segment's Z0)")
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>)')
     .option('-q, --quiet', 'print nothing except errors')
