@@ -120,54 +120,57 @@ export function advanceLossySegment(ls: LossySegments, s: number, v: Float64Arra
 }
 
 /**
- * The common case, four series and four shunt terms, with every coefficient held in a local: about
- * three times faster than the general loop, which reads them from the array for every cell.
+ * The common case, four series and four shunt terms, with the coefficients held in locals: the
+ * current half step and the voltage half step are two passes, so each loop's twelve coefficients
+ * stay in registers (one fused loop needs twenty-four and spills them).
  */
 function advanceOneBlock(ls: LossySegments, s: number, v: Float64Array, i: Float64Array): void {
-  const start = ls.start[s];
-  const end = ls.end[s];
-  const C = ls.coef;
-  const si = ls.currentState;
-  const sv = ls.voltageState;
-  let k = ls.coefOffset[s];
-  const a = C[k], b = C[k + 1], c = C[k + 2], d = C[k + 3];
+  const k = ls.coefOffset[s];
+  advanceCurrentsOneBlock(ls.coef, k, ls.currentState, ls.currentStateOffset[s], ls.start[s], ls.end[s], v, i);
+  advanceVoltagesOneBlock(ls.coef, k, ls.voltageState, ls.voltageStateOffset[s], ls.start[s], ls.end[s], v, i);
+}
+
+/** Current half step of every cell (node n → n+1) with its four sections, from the old voltages. */
+function advanceCurrentsOneBlock(C: Float64Array, k: number, si: Float64Array, io: number, start: number, end: number, v: Float64Array, i: Float64Array): void {
+  const a = C[k], b = C[k + 1];
   k += 4;
   const g0 = C[k], a0 = C[k + 1], b0 = C[k + 2], g1 = C[k + 3], a1 = C[k + 4], b1 = C[k + 5];
   const g2 = C[k + 6], a2 = C[k + 7], b2 = C[k + 8], g3 = C[k + 9], a3 = C[k + 10], b3 = C[k + 11];
-  k += 12;
-  const h0 = C[k], e0 = C[k + 1], f0 = C[k + 2], h1 = C[k + 3], e1 = C[k + 4], f1 = C[k + 5];
-  const h2 = C[k + 6], e2 = C[k + 7], f2 = C[k + 8], h3 = C[k + 9], e3 = C[k + 10], f3 = C[k + 11];
-  let io = ls.currentStateOffset[s];
-  let vo = ls.voltageStateOffset[s];
   let vn = v[start];
-  let left = 0;
-  for (let n = start; n < end; n++) {
-    // current half step of cell n (node n → n+1) with its four sections
+  for (let n = start; n < end; n++, io += 4) {
     const vNext = v[n + 1];
     const old = i[n + 1];
     const s0 = si[io], s1 = si[io + 1], s2 = si[io + 2], s3 = si[io + 3];
-    const right = a * old + b * (vn - vNext) + g0 * s0 + g1 * s1 + g2 * s2 + g3 * s3;
-    i[n + 1] = right;
-    const sumI = right + old;
-    si[io] = a0 * s0 + b0 * sumI;
-    si[io + 1] = a1 * s1 + b1 * sumI;
-    si[io + 2] = a2 * s2 + b2 * sumI;
-    si[io + 3] = a3 * s3 + b3 * sumI;
-    io += 4;
-    // voltage half step of interior node n with its four branches (the segment's first node is an end)
-    if (n > start) {
-      const t0 = sv[vo], t1 = sv[vo + 1], t2 = sv[vo + 2], t3 = sv[vo + 3];
-      const vNew = c * vn + d * (left - right) + h0 * t0 + h1 * t1 + h2 * t2 + h3 * t3;
-      v[n] = vNew;
-      const sumV = vNew + vn;
-      sv[vo] = e0 * t0 + f0 * sumV;
-      sv[vo + 1] = e1 * t1 + f1 * sumV;
-      sv[vo + 2] = e2 * t2 + f2 * sumV;
-      sv[vo + 3] = e3 * t3 + f3 * sumV;
-      vo += 4;
-    }
-    left = right;
+    const now = a * old + b * (vn - vNext) + g0 * s0 + g1 * s1 + g2 * s2 + g3 * s3;
+    i[n + 1] = now;
+    const sum = now + old;
+    si[io] = a0 * s0 + b0 * sum;
+    si[io + 1] = a1 * s1 + b1 * sum;
+    si[io + 2] = a2 * s2 + b2 * sum;
+    si[io + 3] = a3 * s3 + b3 * sum;
     vn = vNext;
+  }
+}
+
+/** Voltage half step of every interior node with its four branches, from the new currents. */
+function advanceVoltagesOneBlock(C: Float64Array, k: number, sv: Float64Array, vo: number, start: number, end: number, v: Float64Array, i: Float64Array): void {
+  const c = C[k + 2], d = C[k + 3];
+  k += 16;
+  const h0 = C[k], e0 = C[k + 1], f0 = C[k + 2], h1 = C[k + 3], e1 = C[k + 4], f1 = C[k + 5];
+  const h2 = C[k + 6], e2 = C[k + 7], f2 = C[k + 8], h3 = C[k + 9], e3 = C[k + 10], f3 = C[k + 11];
+  let left = i[start + 1];
+  for (let n = start + 1; n < end; n++, vo += 4) {
+    const right = i[n + 1];
+    const old = v[n];
+    const t0 = sv[vo], t1 = sv[vo + 1], t2 = sv[vo + 2], t3 = sv[vo + 3];
+    const now = c * old + d * (left - right) + h0 * t0 + h1 * t1 + h2 * t2 + h3 * t3;
+    v[n] = now;
+    const sum = now + old;
+    sv[vo] = e0 * t0 + f0 * sum;
+    sv[vo + 1] = e1 * t1 + f1 * sum;
+    sv[vo + 2] = e2 * t2 + f2 * sum;
+    sv[vo + 3] = e3 * t3 + f3 * sum;
+    left = right;
   }
 }
 
