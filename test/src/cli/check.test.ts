@@ -1,23 +1,13 @@
 // `ladderwave check` in-process: exit codes 0 / 1 / 2, the table, and the report files.
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
-import { SMALL, tempDir, writeScenario } from './fixtures.js';
-import { rmSync } from 'node:fs';
+import { SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
 const REPO = resolve(import.meta.dirname, '../../..');
-const dirs: string[] = [];
-afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
-function dir(): string {
-  const d = tempDir();
-  dirs.push(d);
-  return d;
-}
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
+const dir = tempDirs();
+const collect = collectOutput;
 
 const PASSING = { ...SMALL, checks: [{ probe: 'rx', metric: 'final', min: '0.49V', max: '0.51V' }] };
 const FAILING = { ...SMALL, checks: [{ probe: 'rx', metric: 'max', max: '0.2V' }] };

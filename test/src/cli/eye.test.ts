@@ -1,24 +1,15 @@
 // `ladderwave eye` in-process: the whole PRBS-7 pattern is run, eye.png and summary.json are written,
 // and bad requests exit 2 without leaving anything behind.
-import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { PNG } from 'pngjs';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
-import { SMALL, tempDir, writeScenario } from './fixtures.js';
+import { SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
+const collect = collectOutput;
 
-const dirs: string[] = [];
-afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
-function dir(): string {
-  const d = tempDir('lw-eye-');
-  dirs.push(d);
-  return d;
-}
+const dir = tempDirs('lw-eye-');
 
 /** PRBS-7 at 1 Gb/s over a matched 5 cm line (TD = 300 ps); the scenario's own duration is far too short. */
 const BITS = {

@@ -1,5 +1,6 @@
 // Small scenarios for the CLI and pipeline tests, written into temporary folders.
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { afterAll } from 'vitest';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -42,4 +43,21 @@ export function writeScenario(dir: string, name: string, content: unknown): stri
   const path = join(dir, name);
   writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content, null, 2) + '\n');
   return path;
+}
+
+/** Output collected from an in-process CLI run (runCli's `io`). */
+export function collectOutput() {
+  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
+  return io;
+}
+
+/** A temporary-folder maker whose folders are removed after the file's tests (call at module level). */
+export function tempDirs(prefix?: string): () => string {
+  const made: string[] = [];
+  afterAll(() => made.forEach((d) => rmSync(d, { recursive: true, force: true })));
+  return () => {
+    const d = tempDir(prefix);
+    made.push(d);
+    return d;
+  };
 }

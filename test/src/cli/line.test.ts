@@ -4,16 +4,13 @@ import { rmSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
 import type { LineReport } from '../../../src/lines-report/index.js';
-import { tempDir, writeScenario } from './fixtures.js';
+import { tempDir, writeScenario, collectOutput } from './fixtures.js';
 
 const C0 = 299_792_458;
 const DB_PER_NEPER = 20 / Math.LN10;
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
+const collect = collectOutput;
 
 async function line(args: string[]) {
   const io = collect();

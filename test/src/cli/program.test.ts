@@ -1,22 +1,13 @@
 // The CLI in-process through runCli, with collected output: usage handling and multi-scenario runs.
-import { mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { mkdirSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
-import { BAD_TEXT, SMALL, tempDir, writeScenario } from './fixtures.js';
+import { BAD_TEXT, SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
+const collect = collectOutput;
 
-const dirs: string[] = [];
-afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
-function dir(): string {
-  const d = tempDir();
-  dirs.push(d);
-  return d;
-}
+const dir = tempDirs();
 
 describe('usage', () => {
   it.each([

@@ -1,21 +1,12 @@
 // `ladderwave sweep` and `ladderwave merge` in-process: outputs, exit codes and usage errors.
-import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
-import { SMALL, tempDir, writeScenario } from './fixtures.js';
+import { SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
-const dirs: string[] = [];
-afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
-function dir(): string {
-  const d = tempDir();
-  dirs.push(d);
-  return d;
-}
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
+const dir = tempDirs();
+const collect = collectOutput;
 
 const NET = {
   ...SMALL,

@@ -1,24 +1,15 @@
 // `ladderwave tdr` in-process: files written, exit codes, bad options, nothing left behind on failure.
 // The reading itself is checked against its references in test/src/views/tdr.test.ts; here a matched
 // 50 Ω line must read 50 Ω (Z = Z0·(1 + ρ)/(1 − ρ) with ρ = 0; Pozar, Microwave Engineering, ch. 2).
-import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { PNG } from 'pngjs';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
-import { BAD_TEXT, HUGE, SMALL, tempDir, writeScenario } from './fixtures.js';
+import { BAD_TEXT, HUGE, SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
-function collect() {
-  const io = { stdout: '', stderr: '', out: (s: string) => void (io.stdout += s), err: (s: string) => void (io.stderr += s) };
-  return io;
-}
-const dirs: string[] = [];
-afterAll(() => dirs.forEach((d) => rmSync(d, { recursive: true, force: true })));
-function dir(): string {
-  const d = tempDir('lw-tdr-');
-  dirs.push(d);
-  return d;
-}
+const collect = collectOutput;
+const dir = tempDirs('lw-tdr-');
 
 describe('ladderwave tdr', () => {
   it('writes tdr.png and tdr.csv and prints the reading of each segment', async () => {
