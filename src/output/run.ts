@@ -17,7 +17,7 @@ import type { ViewName } from '../views/select.js';
 import type { EyeViewOptions } from '../views/draw.js';
 import { readScenario } from '../scenario/load.js';
 import type { Problem } from '../scenario/problems.js';
-import { AtomicBatch } from './atomic.js';
+import { AtomicBatch, type ChunkSink } from './atomic.js';
 import { writeCsv } from './csv.js';
 import { probeRows } from '../probe-rows.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
@@ -145,6 +145,24 @@ export async function writeRunFiles(
   summaryJson?: string,
   opts: { csv?: boolean } = {},
 ): Promise<string[]> {
+  const entries: FolderEntry[] = [];
+  if (opts.csv ?? true) entries.push({ path: OUTPUT_FILES.csv, data: (sink) => writeCsv(outputs.result.record, sink) });
+  entries.push(...files);
+  entries.push({ path: OUTPUT_FILES.summary, data: summaryJson ?? summaryToJson(outputs.summary) });
+  return writeOutputFolder(outDir, entries);
+}
+
+/** One file of an output folder: a path inside it and its content (or a writer of its content). */
+export interface FolderEntry {
+  path: string;
+  data: string | Uint8Array | ((sink: ChunkSink) => Promise<void> | void);
+}
+
+/**
+ * Writes the files into `outDir` together: each to a temporary name, then all renamed. If anything
+ * fails, the temporary files and the folders this call created are removed, and OutputError is thrown.
+ */
+export async function writeOutputFolder(outDir: string, entries: readonly FolderEntry[]): Promise<string[]> {
   let created: string | undefined;
   try {
     created = await mkdir(outDir, { recursive: true });
@@ -154,8 +172,7 @@ export async function writeRunFiles(
   const batch = new AtomicBatch();
   const madeSubfolders: string[] = [];
   try {
-    if (opts.csv ?? true) await batch.stage(join(outDir, OUTPUT_FILES.csv), (sink) => writeCsv(outputs.result.record, sink));
-    for (const f of files) {
+    for (const f of entries) {
       const target = join(outDir, f.path);
       const folder = dirname(target);
       if (resolve(folder) !== resolve(outDir)) {
@@ -164,7 +181,6 @@ export async function writeRunFiles(
       }
       await batch.stage(target, f.data);
     }
-    await batch.stage(join(outDir, OUTPUT_FILES.summary), summaryJson ?? summaryToJson(outputs.summary));
     return await batch.commit();
   } catch (e) {
     await batch.abort();

@@ -3,16 +3,13 @@
 // before the folder is created; the two files are written to temporary names and renamed together
 // (tdr.csv last, so a complete CSV means a complete output), and a folder this call created is
 // removed again if writing fails.
-import { mkdir, rmdir } from 'node:fs/promises';
-import { dirname, join, resolve, sep } from 'node:path';
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
 import { RunRefused } from '../../sim/errors.js';
 import { DEFAULT_LIMITS, type RunLimits } from '../../sim/limits.js';
 import { planRun, simulate } from '../../sim/simulate.js';
 import { routeDelay } from '../../sim/discretize.js';
-import { AtomicBatch } from './atomic.js';
-import { OutputError, readScenarioFile, type LoadedScenario } from './run.js';
+import { readScenarioFile, writeOutputFolder, type LoadedScenario } from './run.js';
 import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from '../views/tdr.js';
 
 export const TDR_FILES = { png: 'tdr.png', csv: 'tdr.csv' } as const;
@@ -70,23 +67,10 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
   const csv = tdrCsv(profile);
 
   options.onPhase?.('write');
-  let created: string | undefined;
-  try {
-    created = await mkdir(outDir, { recursive: true });
-  } catch (e) {
-    throw new OutputError(`cannot create the output folder ${outDir}: ${(e as Error).message}`, e);
-  }
-  const batch = new AtomicBatch();
-  let files: string[];
-  try {
-    await batch.stage(join(outDir, TDR_FILES.png), png);
-    await batch.stage(join(outDir, TDR_FILES.csv), csv);
-    files = await batch.commit();
-  } catch (e) {
-    await batch.abort();
-    if (created) await removeEmptyFolders(created, outDir);
-    throw new OutputError(`cannot write the outputs in ${outDir}: ${(e as Error).message}`, e);
-  }
+  const files = await writeOutputFolder(outDir, [
+    { path: TDR_FILES.png, data: png },
+    { path: TDR_FILES.csv, data: csv },
+  ]);
   return { scenario, outDir, net, result, profile, files, wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 } };
 }
 
@@ -106,18 +90,4 @@ function refuseWithAdvice(net: Net, rise: number, limits?: Partial<RunLimits>): 
   const advice = `  a slower TDR step would fit: --rise ${Number((suggested * 1e12).toPrecision(3))}ps or more (the resolution coarsens in proportion)`;
   lines.splice(Math.max(1, lines.length - 1), 0, advice);
   throw new RunRefused(lines.join('\n'));
-}
-
-/** Removes the empty folders from `leaf` up to and including `top` (what mkdir -p created). */
-async function removeEmptyFolders(top: string, leaf: string): Promise<void> {
-  const topAbs = resolve(top);
-  let dir = resolve(leaf);
-  while (dir === topAbs || dir.startsWith(topAbs + sep)) {
-    try {
-      await rmdir(dir);
-    } catch {
-      return;
-    }
-    dir = dirname(dir);
-  }
 }
