@@ -9,8 +9,8 @@
 //   coax      g = (1/π)(1/d + 1/D)                     (= (1/2π)(1/a + 1/b), closed form)
 //   two wires g = (2/(πd)) · (s/d)/√((s/d)² − 1)       (closed form, includes proximity effect)
 //   microstrip, stripline: ∂Z0,air/∂n of the very formulas used for Z0 (Hammerstad–Jensen with
-//   thickness; Cohn with Wheeler's thickness ratio), by a central difference. This is the same
-//   rule applied the same way as in wcalc's stripline model and in Pozar's stripline loss formula.
+//   thickness; Cohn with Wheeler's thickness ratio), by a central difference. This is Wheeler's
+//   incremental-inductance rule, the one behind Pozar's stripline loss formula.
 // With Rs = √(ωµ/2σ), the resistance is R' = K·√(ω/2), K = g·√(µ/σ): the skin coefficient of the
 // conductor impedance K·√(jω) used by freq-model.ts.
 

@@ -7,8 +7,6 @@
 // Dispersion of ε_eff: M. Kirschning and R. H. Jansen, "Accurate model for effective dielectric
 // constant of microstrip with validity up to millimetre-wave frequencies", Electronics Letters
 // 18(6), 1982, pp. 272–273.
-// Formulas cross-checked against the open implementations in Qucs/KiCad's transmission-line
-// calculator (microstrip.cpp), which follow the same papers.
 
 import { C0, ETA0 } from './constants.js';
 import { solveDecreasing } from './lsq.js';
