@@ -2,7 +2,7 @@
 // no typed arrays, no NaN or Infinity — a quantity that cannot be measured is null, and `reasons`
 // (on the probe, on each edge, on each delay) says why.
 import { analyzeEdges, DEFAULT_SETTLE_BAND, type BandSpec, type EdgeMeasurement, type Runt } from './edges.js';
-import { extremes, stateLevels, type ReferenceLevels, type Samples } from './levels.js';
+import { extremes, stateLevels, type Samples, type StateLevels } from './levels.js';
 import { measureDelays, type DelayMeasurement } from './delay.js';
 import { resolveThresholds, type LogicThresholds, type ThresholdSpec } from './thresholds.js';
 import { formatSI } from './format.js';
@@ -56,15 +56,8 @@ export interface Flag {
   time?: number;
 }
 
-export interface LevelsSummary {
-  low: number;
-  high: number;
-  amplitude: number;
-  lowSource: 'histogram' | 'nominal';
-  highSource: 'histogram' | 'nominal';
-  bins: number;
-  reference: ReferenceLevels;
-}
+/** The state levels as written to summary.json (the `flat` flag is reported as a flag instead). */
+export type LevelsSummary = Omit<StateLevels, 'flat'>;
 
 export interface NoiseMargins {
   /** Worst (smallest) high-state margin over the record: lowest high level − vih (V). */
