@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { sampleLog as sampleLogSeeded } from '../../support/sample-log.js';
 import {
   debyeEpsilon,
   debyeFit,
@@ -11,16 +12,7 @@ import {
 
 const FR4 = djordjevicSarkar(4.3, 0.02, 1e9); // corners 1 kHz and 1 THz
 
-/** Deterministic log-uniform sample of n frequencies in [a, b] (a simple LCG, no Math.random). */
-function sampleLog(a: number, b: number, n: number, seed = 12345): number[] {
-  let s = seed;
-  const out: number[] = [];
-  for (let i = 0; i < n; i++) {
-    s = (s * 1103515245 + 12345) % 2147483648;
-    out.push(a * Math.pow(b / a, s / 2147483648));
-  }
-  return out;
-}
+const sampleLog = (a: number, b: number, n: number) => sampleLogSeeded(a, b, n, 12345);
 
 describe('Djordjevic–Sarkar wideband Debye model (IEEE T-EMC 43(4), 2001)', () => {
   it('matches εr and tanδ exactly at the fit frequency', () => {

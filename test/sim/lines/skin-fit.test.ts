@@ -1,17 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { sampleLog as sampleLogSeeded } from '../../support/sample-log.js';
 import { COPPER_CONDUCTIVITY, MU0 } from '../../../sim/lines/constants.js';
 import { skinCoefficient } from '../../../sim/lines/conductor.js';
 import { internalImpedance, skinFit, skinFitAuto, skinFitImpedance, type ConductorImpedance } from '../../../sim/lines/skin-fit.js';
 
-function sampleLog(a: number, b: number, n: number, seed = 777): number[] {
-  let s = seed;
-  const out: number[] = [];
-  for (let i = 0; i < n; i++) {
-    s = (s * 1103515245 + 12345) % 2147483648;
-    out.push(a * Math.pow(b / a, s / 2147483648));
-  }
-  return out;
-}
+const sampleLog = (a: number, b: number, n: number) => sampleLogSeeded(a, b, n, 777);
 
 // A 1 oz, 0.36 mm FR-4 microstrip: R_dc ≈ 2.7 Ω/m, K ≈ 3.8e-4 Ω/(m·√(rad/s)).
 const TRACE: ConductorImpedance = { rdc: 2.74, skinK: 3.85e-4 };
