@@ -48,8 +48,31 @@ export interface ProbeRecord {
   names: string[];
   /** Time between samples (s); sample i is at t = i·dtSample. */
   dtSample: number;
-  /** Shape [probes, samples], volts. Read `.data` directly in loops. */
+  /** Shape [probes, samples], volts. One probe's samples: `probeTrace(record, p)`. */
   values: NdArray<Float64Array>;
+}
+
+/**
+ * One probe's samples (by index or name) as a Float64Array: the record's row `values.pick(p, null)`,
+ * a view of the record's data when the row is contiguous (it always is for records the engine makes),
+ * else a copy.
+ */
+export function probeTrace(record: ProbeRecord, probe: number | string): Float64Array {
+  const p = typeof probe === 'number' ? probe : record.names.indexOf(probe);
+  if (!(p >= 0 && p < record.values.shape[0])) {
+    throw new RangeError(`no probe ${typeof probe === 'number' ? `#${probe}` : `named '${probe}'`} in the record (probes: ${record.names.join(', ')})`);
+  }
+  const row = record.values.pick(p, null);
+  const n = row.shape[0]!;
+  if (row.stride[0] === 1) return row.data.subarray(row.offset, row.offset + n);
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = row.get(i);
+  return out;
+}
+
+/** Every probe's samples, in record order (see probeTrace). */
+export function probeTraces(record: ProbeRecord): Float64Array[] {
+  return record.names.map((_, p) => probeTrace(record, p));
 }
 
 /** Voltage along the route over time, decimated (see route-map.ts for the bound). */

@@ -27,7 +27,7 @@ export {
   type RunReport,
 } from './output/run.js';
 export { csvChunks, csvHeader, probeRecordToCsv, writeCsv } from './output/csv.js';
-export { probeRows } from './probe-rows.js';
+export { probeTrace, probeTraces } from '../sim/result.js';
 export { crossing50, probeStats, type Crossing50, type ProbeStats } from './output/crossing.js';
 export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
 export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';

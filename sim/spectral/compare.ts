@@ -1,7 +1,7 @@
 // Sample-by-sample comparison of two probe records, e.g. the time-domain engine against the spectral
 // cross-check.
 
-import type { ProbeRecord } from '../result.js';
+import { probeTrace, type ProbeRecord } from '../result.js';
 
 export interface ProbeDifference {
   name: string;
@@ -30,8 +30,8 @@ export function compareRecords(a: ProbeRecord, b: ProbeRecord, swing: number): P
   a.names.forEach((name, pa) => {
     const pb = b.names.indexOf(name);
     if (pb < 0) return;
-    const ra = a.values.data.subarray(pa * na, (pa + 1) * na);
-    const rb = b.values.data.subarray(pb * nb, (pb + 1) * nb);
+    const ra = probeTrace(a, pa);
+    const rb = probeTrace(b, pb);
     let maxAbs = 0;
     let at = 0;
     let count = 0;

@@ -5,7 +5,7 @@ import { simulate } from '../../sim/simulate.js';
 import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
 import { writeCsv } from '../output/csv.js';
-import { probeRows } from '../probe-rows.js';
+import { probeTraces } from '../../sim/result.js';
 import { readScenarioFile } from '../output/run.js';
 import { netChecks } from '../scenario/checks.js';
 import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions } from './golden.js';
@@ -131,7 +131,7 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
             message: `no golden file ${path}; ${hint}`,
           });
         } else if (golden) {
-          const cmp = compareWithGolden({ names: result.record.names, dt: result.record.dtSample, rows: probeRows(result.record) }, golden, g, hint);
+          const cmp = compareWithGolden({ names: result.record.names, dt: result.record.dtSample, rows: probeTraces(result.record) }, golden, g, hint);
           for (const c of cmp) {
             report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: c.measuredText, pass: c.pass, message: c.message });
           }

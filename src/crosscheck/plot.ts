@@ -1,16 +1,11 @@
 // crosscheck.png: the time-domain and spectral solutions of every probe on one plot (time domain
 // solid, spectral dashed, in the probe's colour), and below it their difference as a percent of
 // the swing. Reads only the two records and the comparison.
-import type { ProbeRecord } from '../../sim/result.js';
+import { probeTrace, type ProbeRecord } from '../../sim/result.js';
 import { drawLinePlot, encodePng, Surface, traceStyle, type LineSeries } from '../render/index.js';
 import type { CrossCheckResult } from './crosscheck.js';
 
 export const CROSSCHECK_FILE = 'crosscheck.png';
-
-function row(r: ProbeRecord, p: number): Float64Array {
-  const n = r.values.shape[1];
-  return r.values.data.subarray(p * n, (p + 1) * n);
-}
 
 /** The overlay and difference plot as PNG bytes (default 1200 × 900). */
 export async function renderCrossCheck(spec: {
@@ -31,10 +26,10 @@ export async function renderCrossCheck(spec: {
     const q = sp.names.indexOf(name);
     if (q < 0) return;
     const base = traceStyle(overlay.length / 2);
-    overlay.push({ name: `${name} (time domain)`, values: row(td, p), dx: td.dtSample, style: { color: base.color, dash: [], width: 2 } });
-    overlay.push({ name: `${name} (spectral)`, values: row(sp, q), dx: sp.dtSample, style: { color: base.color, dash: [7, 5], width: 1.5 } });
-    const a = row(td, p);
-    const b = row(sp, q);
+    overlay.push({ name: `${name} (time domain)`, values: probeTrace(td, p), dx: td.dtSample, style: { color: base.color, dash: [], width: 2 } });
+    overlay.push({ name: `${name} (spectral)`, values: probeTrace(sp, q), dx: sp.dtSample, style: { color: base.color, dash: [7, 5], width: 1.5 } });
+    const a = probeTrace(td, p);
+    const b = probeTrace(sp, q);
     const n = Math.min(a.length, b.length);
     const d = new Float64Array(n);
     for (let i = 0; i < n; i++) d[i] = (100 * (a[i] - b[i])) / check.swing;

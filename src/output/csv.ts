@@ -4,8 +4,7 @@
 // (`String(x)`: parsing the text gives back the identical double). Sample i's time is computed as
 // i·dtSample, never accumulated, so it carries no drift. Long records are produced in chunks of
 // rows so that no single string grows beyond a few megabytes.
-import type { ProbeRecord } from '../../sim/result.js';
-import { probeRows } from '../probe-rows.js';
+import { probeTraces, type ProbeRecord } from '../../sim/result.js';
 import type { ChunkSink } from './atomic.js';
 
 /** Rows per chunk: about 25 bytes a value, so a few MB per chunk for a handful of probes. */
@@ -28,7 +27,7 @@ export function formatNumber(x: number): string {
 
 /** The CSV text in chunks: first the header, then blocks of `rowsPerChunk` rows. */
 export function* csvChunks(record: ProbeRecord, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Generator<string> {
-  const rows = probeRows(record);
+  const rows = probeTraces(record);
   const samples = record.values.shape[1];
   const dt = record.dtSample;
   yield csvHeader(record.names);

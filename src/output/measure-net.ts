@@ -2,7 +2,7 @@
 // (src/measure) against the driver's source waveform (for delays), with the probe's logic thresholds
 // and every settling band the checks ask for; then the scenario's checks evaluated.
 import type { Net } from '../../sim/model.js';
-import type { SimResult } from '../../sim/result.js';
+import { probeTraces, type SimResult } from '../../sim/result.js';
 import { nominalLevels, signalFunction } from '../../sim/signals.js';
 import {
   evaluateChecks,
@@ -13,7 +13,6 @@ import {
   type CheckSpec,
   type ProbeMeasurements,
 } from '../measure/index.js';
-import { probeRows } from '../probe-rows.js';
 import { netChecks, netThresholds } from '../scenario/checks.js';
 
 export interface NetMeasurements {
@@ -41,7 +40,7 @@ function bandKey(b: BandSpec): string {
  */
 export function measureNet(net: Net, result: SimResult, extraChecks: readonly CheckSpec[] = []): NetMeasurements {
   const { record } = result;
-  const rows = probeRows(record);
+  const rows = probeTraces(record);
   const samples = record.values.shape[1];
   const source = sourceWaveform(net, record.dtSample, samples);
   const sourceNominal = nominalLevels(net.driver.signal);

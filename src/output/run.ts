@@ -11,7 +11,7 @@ import { readdir, mkdir, rmdir, unlink } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
 import type { Net } from '../../sim/model.js';
 import ndarray from 'ndarray';
-import type { ProbeRecord, SimResult } from '../../sim/result.js';
+import { probeTrace, probeTraces, type ProbeRecord, type SimResult } from '../../sim/result.js';
 import { simulate, type SimulateOptions } from '../../sim/simulate.js';
 import type { ViewName } from '../views/select.js';
 import type { EyeViewOptions } from '../views/draw.js';
@@ -19,7 +19,6 @@ import { readScenario } from '../scenario/load.js';
 import type { Problem } from '../scenario/problems.js';
 import { AtomicBatch, type ChunkSink } from './atomic.js';
 import { writeCsv } from './csv.js';
-import { probeRows } from '../probe-rows.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
 import { addMeasurementSections } from './measurement-sections.js';
 
@@ -112,7 +111,7 @@ export async function renderResult(title: string, result: SimResult, options: { 
     title,
     dtSample: record.dtSample,
     names: record.names,
-    values: probeRows(record),
+    values: probeTraces(record),
     width: options.width,
     height: options.height,
   });
@@ -209,11 +208,7 @@ export function selectProbes(record: ProbeRecord, names: readonly string[]): Pro
   if (names.length === record.names.length && names.every((n, i) => record.names[i] === n)) return record;
   const n = record.values.shape[1];
   const data = new Float64Array(names.length * n);
-  names.forEach((name, i) => {
-    const p = record.names.indexOf(name);
-    if (p < 0) throw new Error(`selectProbes: no probe '${name}' in the record`);
-    data.set(record.values.data.subarray(p * n, (p + 1) * n), i * n);
-  });
+  names.forEach((name, i) => data.set(probeTrace(record, name), i * n));
   return { names: [...names], dtSample: record.dtSample, values: ndarray(data, [names.length, n]) };
 }
 

@@ -7,8 +7,7 @@
 // to the next (no timestamps, no wall time), so the same scenario and tool version give the same
 // bytes.
 import { createHash } from 'node:crypto';
-import type { Discretization, ProbeRecord } from '../../sim/result.js';
-import { probeRows } from '../probe-rows.js';
+import { probeTraces, type Discretization, type ProbeRecord } from '../../sim/result.js';
 import { probeStats, type ProbeStats } from './crossing.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 
@@ -58,7 +57,7 @@ export function sha256Hex(bytes: Uint8Array | string): string {
 export function buildSummary(input: SummaryInput): Summary {
   const { record } = input;
   const samples = record.values.shape[1];
-  const rows = probeRows(record);
+  const rows = probeTraces(record);
   const probes: Record<string, ProbeStats> = {};
   record.names.forEach((name, p) => {
     if (Object.prototype.hasOwnProperty.call(probes, name)) throw new Error(`duplicate probe name '${name}' in the record`);

@@ -4,7 +4,7 @@
 // by eye. Nets the lattice method cannot describe (reactive or lossy parts, signals other than a
 // step) get a message panel saying why, and only the simulated waveforms.
 import type { Net, ProbeSpec } from '../../sim/model.js';
-import type { SimResult } from '../../sim/result.js';
+import { probeTrace, type SimResult } from '../../sim/result.js';
 import { buildFrame, drawFrameBackground, drawFrameForeground, fitText, TYPE, type Frame, type FrameSpec } from '../render/frame.js';
 import { OKABE_ITO, THEME, type TraceStyle } from '../render/palette.js';
 import { encodePng, Surface, type Rect } from '../render/surface.js';
@@ -152,13 +152,6 @@ export interface BounceLayout {
   message?: Rect;
 }
 
-function probeTrace(result: SimResult, index: number): Float64Array | undefined {
-  const { values } = result.record;
-  if (index < 0 || index >= values.shape[0]) return undefined;
-  const n = values.shape[1];
-  return values.data.subarray(index * n, (index + 1) * n);
-}
-
 /** Draw the bounce view into `area` of `s`. */
 export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLayout {
   const { net, result } = input;
@@ -192,7 +185,7 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
   const ends = endProbeIndices(net);
   const sidePanel = (which: 'driver' | 'receiver', x: number): Frame => {
     const idx = ends[which];
-    const trace = probeTrace(result, idx);
+    const trace = idx >= 0 ? probeTrace(result.record, idx) : undefined;
     const name = idx >= 0 ? net.probes[idx].name : undefined;
     const levels = diagram.supported ? [{ steps: diagram.plateaus[which], style: BOUNCE_STYLE.predicted }] : [];
     const f = drawTimeDownPanel(s, { x, y: body.y, w: sideW, h: body.h }, {

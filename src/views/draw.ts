@@ -1,8 +1,7 @@
 // Draws the views a run asked for (see select.ts), as PNG bytes in memory, from the simulation result
 // only. Each view's module is loaded on first use, so a run that draws no view never loads the renderer.
 import type { Net } from '../../sim/model.js';
-import type { ProbeRecord, SimResult } from '../../sim/result.js';
-import { probeRows } from '../probe-rows.js';
+import { probeTraces, type ProbeRecord, type SimResult } from '../../sim/result.js';
 import { netThresholds } from '../scenario/checks.js';
 import { defaultEyeProbe, eyeInputOf, type EyeInput, type EyeMeasurement } from './eye.js';
 import { VIEW_FILES, type ViewName } from './select.js';
@@ -71,7 +70,7 @@ export async function drawViews(input: DrawViewsInput): Promise<DrawnView[]> {
       case 'waveforms': {
         const { renderWaveforms } = await import('../render/waveforms.js');
         const { record } = input;
-        png = await renderWaveforms({ title: net.title, dtSample: record.dtSample, names: record.names, values: probeRows(record), ...size });
+        png = await renderWaveforms({ title: net.title, dtSample: record.dtSample, names: record.names, values: probeTraces(record), ...size });
         break;
       }
       case 'map': {

@@ -25,7 +25,7 @@
 //   (below vil); 0 when some window is on the wrong side at the sampling instant.
 import { routeDelay } from '../../sim/discretize.js';
 import type { Net, Signal } from '../../sim/model.js';
-import type { SimResult } from '../../sim/result.js';
+import { probeTrace, type SimResult } from '../../sim/result.js';
 import { rampDuration } from '../../sim/signals.js';
 import { stateLevels } from '../measure/index.js';
 
@@ -418,12 +418,9 @@ export function measureEye(input: EyeInput): EyeMeasurement {
 /** The EyeInput for one probe of a simulation result. */
 export function eyeInputOf(net: Net, result: SimResult, probe: string, opts: Partial<Pick<EyeInput, 'thresholds' | 'samplingPhase' | 'delay'>> = {}): EyeInput {
   const { record } = result;
-  const p = record.names.indexOf(probe);
-  if (p < 0) throw new RangeError(`no probe named '${probe}' (probes: ${record.names.join(', ')})`);
-  const n = record.values.shape[1];
   return {
     signal: net.driver.signal,
-    values: record.values.data.subarray(p * n, (p + 1) * n),
+    values: probeTrace(record, probe),
     dt: record.dtSample,
     ...opts,
   };

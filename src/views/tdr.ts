@@ -18,7 +18,7 @@
 // resolution).
 import { NetError } from '../../sim/errors.js';
 import type { Net } from '../../sim/model.js';
-import type { SimResult } from '../../sim/result.js';
+import { probeTrace, type SimResult } from '../../sim/result.js';
 import { rampDuration, signalFunction } from '../../sim/signals.js';
 import { drawLinePlot } from '../render/lineplot.js';
 import type { Marker } from '../render/marks.js';
@@ -134,8 +134,8 @@ export function tdrProfile(net: Net, result: SimResult): TdrProfile {
   if (probe < 0) throw new Error('tdrProfile: the net needs a probe at the driver pin (see tdrNet)');
   const zRef = net.driver.resistance;
   const rec = result.record;
-  const n = rec.values.shape[1];
-  const v = rec.values.data.subarray(probe * n, (probe + 1) * n);
+  const v = probeTrace(rec, probe);
+  const n = v.length;
   const dt = rec.dtSample;
   const source = signalFunction(sig);
   const t50 = sig.start + rampDuration(sig.rise) / 2;

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { simulate } from '../../sim/simulate.js';
 import { signalFunction } from '../../sim/signals.js';
 import { latticeVoltage } from '../support/lattice.js';
-import { lineOf, net, part, stepSignal, trace } from '../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 // Lossless line with resistive ends and a ramp source, against the bounce (lattice) diagram solution
 // (Pozar, Microwave Engineering, ch. 2; Johnson & Graham, High-Speed Digital Design, ch. 4).
@@ -63,7 +64,7 @@ describe('lossless line against the lattice diagram', () => {
       const ref = { z0: Z0, delay: total * TPD, rs: c.rs, rl: c.rl, source: signalFunction(signal) };
       const dts = res.record.dtSample;
       [0, 0.5, 1].forEach((x, p) => {
-        const v = trace(res.record.values, p);
+        const v = probeTrace(res.record, p);
         const r = Float64Array.from(v, (_, i) => latticeVoltage(ref, x, i * dts));
         // Below Courant 1 leapfrog rounds the corners of a ramp (numerical dispersion, Taflove & Hagness,
         // Computational Electrodynamics, ch. 2): samples within 3 Δt of a corner of the exact waveform

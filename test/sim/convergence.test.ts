@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../sim/simulate.js';
 import { signalFunction } from '../../sim/signals.js';
-import { lineOf, net, part, stepSignal, trace } from '../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 describe('lossy line convergence', () => {
   // Heaviside's distortionless line, R′/L′ = G′/C′: every frequency travels at 1/√(L′C′) and is
@@ -27,7 +28,7 @@ describe('lossy line convergence', () => {
           cellsPerRise,
         }),
       );
-      const v = trace(res.record.values, 1);
+      const v = probeTrace(res.record, 1);
       const dts = res.record.dtSample;
       const atten = Math.exp(-(r / z0) * length);
       let worst = 0;
@@ -62,8 +63,8 @@ describe('energy balance', () => {
         duration: 40 * length * tpd,
       }),
     );
-    const v0 = trace(res.record.values, 0);
-    const vl = trace(res.record.values, 1);
+    const v0 = probeTrace(res.record, 0);
+    const vl = probeTrace(res.record, 1);
     const dts = res.record.dtSample;
     let supplied = 0;
     let lost = 0;

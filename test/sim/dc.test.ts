@@ -4,7 +4,8 @@ import { discretize } from '../../sim/discretize.js';
 import { buildLadder } from '../../sim/ladder.js';
 import { simulate } from '../../sim/simulate.js';
 import type { Net } from '../../sim/model.js';
-import { lineOf, net, part, stepSignal, trace } from '../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 function dcOf(n: Net, source: number) {
   const ladder = buildLadder(n, discretize(n));
@@ -57,7 +58,7 @@ describe('DC operating point', () => {
       duration: 3e-9,
     });
     const res = simulate(n);
-    const v = trace(res.record.values, 1);
+    const v = probeTrace(res.record, 1);
     const expected = 3.3 * (330 / 550) * (1 / (1 + (220 * 330) / 550 / 1e9));
     for (let i = 0; i < v.length; i++) expect(Math.abs(v[i] - expected)).toBeLessThan(1e-9);
   });
@@ -82,7 +83,7 @@ describe('DC operating point', () => {
     });
     const res = simulate(n);
     for (let p = 0; p < 3; p++) {
-      const v = trace(res.record.values, p);
+      const v = probeTrace(res.record, p);
       for (let i = 1; i < v.length; i++) expect(Math.abs(v[i] - v[0])).toBeLessThan(1e-9);
     }
   });

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../sim/simulate.js';
 import { signalFunction } from '../../sim/signals.js';
-import { lineOf, net, part, stepSignal, trace } from '../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 describe('auxiliary loss states', () => {
   // Heaviside's distortionless line (R′/L′ = G′/C′) with matched ends: the receiver sees exactly
@@ -37,7 +38,7 @@ describe('auxiliary loss states', () => {
         cellsPerRise: 32,
       }),
     );
-    const v = trace(res.record.values, 1);
+    const v = probeTrace(res.record, 1);
     const dts = res.record.dtSample;
     const atten = Math.exp(-(r / z0) * length);
     let worst = 0;
@@ -61,7 +62,7 @@ describe('auxiliary loss states', () => {
         duration: 6e-9,
       }),
     );
-    const v = trace(res.record.values, 1);
+    const v = probeTrace(res.record, 1);
     const level = 0.5 * (60 / (50 + 60)); // half the launched wave V+ = Z0/(Rs+Z0) with Z0 = 50·1.2 Ω, matched load
     let t50 = NaN;
     for (let i = 1; i < v.length; i++) if (v[i] >= level) { t50 = (i - 1 + (level - v[i - 1]) / (v[i] - v[i - 1])) * res.record.dtSample; break; }

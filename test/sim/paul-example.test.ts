@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../sim/simulate.js';
-import { net, part, trace } from '../support/nets.js';
+import { net, part } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 // C. R. Paul, Analysis of Multiconductor Transmission Lines (2nd ed.), FDTD chapter worked example:
 // a 400 m line with L = 0.25 µH/m and C = 100 pF/m (Z0 = 50 Ω, v = 2e8 m/s, TD = 2 µs), source
@@ -20,7 +21,7 @@ describe('Paul FDTD worked example (400 m line, 150 Ω source, shorted load)', (
         duration: 20e-6,
       }),
     );
-    const v = trace(res.record.values, 0);
+    const v = probeTrace(res.record, 0);
     const dts = res.record.dtSample;
     // Plateau k holds from the k-th event (0, 4, 6, 8, 10, 12, 14, 16 µs): read 1 µs into each.
     const readAt = [1, 5, 7, 9, 11, 13, 15, 17].map((t) => v[Math.round((t * 1e-6) / dts)]);

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../sim/simulate.js';
 import { rampDuration } from '../../sim/signals.js';
-import { lineOf, net, part, stepSignal, trace } from '../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../support/nets.js';
+import { probeTrace } from '../../sim/result.js';
 
 const Z0 = 50;
 const TPD = 6e-9;
@@ -27,7 +28,7 @@ describe('capacitive load through a matched line', () => {
         cellsPerRise: 25,
       }),
     );
-    const v = trace(res.record.values, 1);
+    const v = probeTrace(res.record, 1);
     const dts = res.record.dtSample;
     const T = rampDuration(rise);
     const A = 0.5;
@@ -67,7 +68,7 @@ describe('series termination', () => {
         ],
       }),
     );
-    const v = trace(res.record.values, 0);
+    const v = probeTrace(res.record, 0);
     const dts = res.record.dtSample;
     const rampEnd = start + rampDuration(rise);
     const at = (t: number) => v[Math.round(t / dts)];
@@ -75,7 +76,7 @@ describe('series termination', () => {
     for (let t = rampEnd + 0.05e-9; t < start + 2 * td - 0.05e-9; t += 0.05e-9) expect(Math.abs(at(t) - 1.65)).toBeLessThan(0.0066);
     expect(Math.abs(at(start + 2 * td + rampDuration(rise) + 0.1e-9) - 3.3)).toBeLessThan(0.0066);
     // the receiver of a series-terminated line sees the full swing at once
-    const rx = trace(res.record.values, 1);
+    const rx = probeTrace(res.record, 1);
     expect(Math.abs(rx[Math.round((rampEnd + td + 0.1e-9) / dts)] - 3.3)).toBeLessThan(0.0066);
   });
 });
@@ -99,7 +100,7 @@ describe('line delay and impedance', () => {
     expect(seg.z0).toBeCloseTo(Math.sqrt(l / c), 12);
     expect(seg.delay).toBeCloseTo(length * Math.sqrt(l * c), 20);
     const cross = (p: number, level: number) => {
-      const v = trace(res.record.values, p);
+      const v = probeTrace(res.record, p);
       for (let i = 1; i < v.length; i++) if (v[i] >= level) return (i - 1 + (level - v[i - 1]) / (v[i] - v[i - 1])) * res.record.dtSample;
       return NaN;
     };

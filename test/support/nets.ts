@@ -36,9 +36,3 @@ export function net(opts: {
     run: { duration: opts.duration, cellsPerRise: opts.cellsPerRise ?? 20, sample: opts.sample },
   };
 }
-
-/** Row p of a probe record as a plain Float64Array view. */
-export function trace(values: { data: Float64Array; shape: number[] }, p: number): Float64Array {
-  const n = values.shape[1];
-  return values.data.subarray(p * n, (p + 1) * n);
-}

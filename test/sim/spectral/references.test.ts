@@ -6,14 +6,15 @@ import { rampDuration, signalFunction } from '../../../sim/signals.js';
 import { dcOperatingPoint } from '../../../sim/spectral/dc.js';
 import { spectralResponse, spectralRun } from '../../../sim/spectral/response.js';
 import { latticeVoltage } from '../../support/lattice.js';
-import { lineOf, net, part, stepSignal, trace } from '../../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../../support/nets.js';
+import { probeTrace, type ProbeRecord } from '../../../sim/result.js';
 
 const Z0 = 50;
 const TPD = 6e-9; // s/m
 
 /** Largest |record row − exact(t)| over all samples. */
-function worstError(values: { data: Float64Array; shape: number[] }, p: number, dts: number, exact: (t: number) => number): number {
-  const v = trace(values, p);
+function worstError(record: ProbeRecord, p: number, dts: number, exact: (t: number) => number): number {
+  const v = probeTrace(record, p);
   let worst = 0;
   for (let i = 0; i < v.length; i++) worst = Math.max(worst, Math.abs(v[i] - exact(i * dts)));
   return worst;
@@ -35,8 +36,8 @@ describe('lossless matched line', () => {
     );
     expect(rec.names).toEqual(['driver', 'receiver']);
     expect(rec.values.shape).toEqual([2, 1201]);
-    expect(worstError(rec.values, 0, dts, (t) => src(t) / 2)).toBeLessThan(0.0005);
-    expect(worstError(rec.values, 1, dts, (t) => src(t - length * TPD) / 2)).toBeLessThan(0.0005);
+    expect(worstError(rec, 0, dts, (t) => src(t) / 2)).toBeLessThan(0.0005);
+    expect(worstError(rec, 1, dts, (t) => src(t - length * TPD) / 2)).toBeLessThan(0.0005);
   });
 });
 
@@ -71,7 +72,7 @@ describe('lossless line with resistive ends against the lattice diagram', () => 
       );
       const lc = { z0: Z0, delay: length * TPD, rs: c.rs, rl: c.rl, source: signalFunction(signal) };
       [0, 0.37, 1].forEach((x, p) => {
-        expect(worstError(rec.values, p, dts, (t) => latticeVoltage(lc, x, t))).toBeLessThan(0.001);
+        expect(worstError(rec, p, dts, (t) => latticeVoltage(lc, x, t))).toBeLessThan(0.001);
       });
     });
   }
@@ -98,10 +99,10 @@ describe('RC without lines', () => {
       net({ signal: stepSignal(1, rise, start), rs: 10, route: [{ kind: 'series', name: 'r', part: part({ r: 90 }) }], receiver: [part({ c: 10e-12 })] }),
       { dtSample: dts, samples: 501 },
     );
-    expect(worstError(rec.values, 1, dts, exact)).toBeLessThan(0.0005);
+    expect(worstError(rec, 1, dts, exact)).toBeLessThan(0.0005);
     // the driver pin: vs − Rs·i with i = (vs − v_C)/R (Ohm's law)
     const src = signalFunction(stepSignal(1, rise, start));
-    expect(worstError(rec.values, 0, dts, (t) => src(t) - (10 / 100) * (src(t) - exact(t)))).toBeLessThan(0.0005);
+    expect(worstError(rec, 0, dts, (t) => src(t) - (10 / 100) * (src(t) - exact(t)))).toBeLessThan(0.0005);
   });
 });
 
@@ -131,8 +132,8 @@ describe('Heaviside distortionless line', () => {
       }),
       { dtSample: dts, samples: 1501 },
     );
-    expect(worstError(rec.values, 0, dts, (t) => 0.5 * Math.exp(-alpha * length) * src(t - length * TPD))).toBeLessThan(0.0005);
-    expect(worstError(rec.values, 1, dts, (t) => 0.5 * Math.exp(-alpha * 0.8) * src(t - 0.8 * TPD))).toBeLessThan(0.0005);
+    expect(worstError(rec, 0, dts, (t) => 0.5 * Math.exp(-alpha * length) * src(t - length * TPD))).toBeLessThan(0.0005);
+    expect(worstError(rec, 1, dts, (t) => 0.5 * Math.exp(-alpha * 0.8) * src(t - 0.8 * TPD))).toBeLessThan(0.0005);
   });
 });
 
@@ -177,7 +178,7 @@ describe('DC steady state of a lossy line', () => {
   it('starts there, and settles to the form at the new level after a step', () => {
     const run = spectralRun(mk(5, 2), { dtSample: 0.1e-9, samples: 1001 });
     xs.forEach((x, p) => {
-      const v = trace(run.record.values, p);
+      const v = probeTrace(run.record, p);
       expect(Math.abs(v[0] - closedForm(5, x))).toBeLessThan(3e-6);
       expect(Math.abs(v[1000] - closedForm(2, x)) / 3).toBeLessThan(1e-5);
     });

@@ -5,7 +5,8 @@ import { RunRefused } from '../../../sim/errors.js';
 import type { ProbeRecord } from '../../../sim/result.js';
 import { compareRecords } from '../../../sim/spectral/compare.js';
 import { planSpectral, spectralRun } from '../../../sim/spectral/response.js';
-import { lineOf, net, part, stepSignal, trace } from '../../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../../support/nets.js';
+import { probeTrace } from '../../../sim/result.js';
 
 const lineNet = (signal = stepSignal(1, 100e-12, 0.2e-9)) =>
   net({ signal, rs: 25, route: [{ kind: 'line', name: 't', line: lineOf(50, 6e-9, 2), length: 0.1 }], receiver: [part({ r: 100, rail: 1 })] });
@@ -31,7 +32,7 @@ describe('planSpectral', () => {
 describe('spectralRun', () => {
   it('returns the DC operating point on every sample for a constant source', () => {
     const run = spectralRun(lineNet(stepSignal(3, 1e-10, 0, 3)), { dtSample: 1e-11, samples: 50 });
-    for (let p = 0; p < 2; p++) for (const v of trace(run.record.values, p)) expect(v).toBe(run.dc[p]);
+    for (let p = 0; p < 2; p++) for (const v of probeTrace(run.record, p)) expect(v).toBe(run.dc[p]);
     // 3 V through 25 Ω and 0.2 Ω of line into 100 Ω to a 1 V rail (Ohm's law)
     expect(run.dc[1]).toBeCloseTo(1 + (2 * 100) / 125.2, 12);
   });

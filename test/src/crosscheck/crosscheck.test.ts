@@ -8,6 +8,7 @@ import { scenarioFromValue } from '../../../src/scenario/load.js';
 import { highFrequencyLimit } from '../../../sim/lines/freq-model.js';
 import type { Net } from '../../../sim/model.js';
 import { simulate } from '../../../sim/simulate.js';
+import { probeTrace } from '../../../sim/result.js';
 
 /** A lossy FR-4 microstrip: skin effect (copper, 1 oz) and Djordjevic–Sarkar dielectric (εr 4.3, tanδ 0.02 at 1 GHz). */
 const FR4_MICROSTRIP = { microstrip: { width: '0.3mm', height: '0.18mm', thickness: '1oz', er: 4.3, lossTangent: 0.02, at: '1GHz' } };
@@ -89,7 +90,7 @@ describe('causality: a lossy line’s step response never starts before length/v
       const front = 1e-9 + item.length / highFrequencyLimit(item.line.wideband).velocity;
       const { record } = simulate(net);
       const n = record.values.shape[1];
-      const rx = record.values.data.subarray(2 * n, 3 * n);
+      const rx = probeTrace(record, 2);
       let before = 0;
       let i = 0;
       for (; i < n && i * record.dtSample < front; i++) before = Math.max(before, Math.abs(rx[i] - rx[0]));

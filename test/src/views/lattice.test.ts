@@ -12,7 +12,8 @@ import { describe, expect, it } from 'vitest';
 import type { Net, RouteItem } from '../../../sim/model.js';
 import { simulate } from '../../../sim/simulate.js';
 import { latticeDiagram, latticeLimitations, latticeVoltageAt, type LatticeDiagram, type Plateau } from '../../../src/views/lattice.js';
-import { lineOf, net, part, stepSignal, trace } from '../../support/nets.js';
+import { lineOf, net, part, stepSignal } from '../../support/nets.js';
+import { probeTrace } from '../../../sim/result.js';
 
 const line = (name: string, z0: number, tpd: number, length: number): RouteItem => ({ kind: 'line', name, line: lineOf(z0, tpd), length });
 const supported = (n: Net): LatticeDiagram => {
@@ -166,7 +167,7 @@ describe('against the simulation of the same net (plateaus within 0.5 % of the s
       const ramp = 40e-12 / 0.8;
       let checked = 0;
       (['driver', 'receiver'] as const).forEach((end, p) => {
-        const v = trace(res.record.values, p);
+        const v = probeTrace(res.record, p);
         for (const pl of d.plateaus[end]) {
           // only plateaus long enough to settle between two ramps
           if (pl.to - pl.from < 2 * ramp + 4 * dts || pl.to > res.discretization.duration) continue;
