@@ -97,8 +97,10 @@ export function striplineValidity(g: StriplineGeometry): Validity {
   const m = t > 0 ? (6 * (b - t)) / (3 * b - t) : 1;
   const dW = t > 0 ? (t / Math.PI) * (1 - 0.5 * Math.log((t / (2 * b - t)) ** 2 + Math.pow((0.0796 * t) / (g.width + 1.1 * t), m))) : 0;
   return validity('stripline', [
-    rangeCheck("W'/(b − t)", (g.width + dW) / (b - t), 0, 10, 'Wheeler 1978: about 0.5 % (from memory)'),
-    rangeCheck('t/b', t / b, 0, 0.25, 'thin-strip thickness correction (from memory: guidance)'),
+    // Wheeler's stated accuracy for this range is recalled, not confirmed (from memory; see the file
+    // header); the message a user sees names the paper only.
+    rangeCheck("W'/(b − t)", (g.width + dW) / (b - t), 0, 10, 'Wheeler 1978: about 0.5 %'),
+    // No range for t/b: the t/b ≤ 0.25 once used here had no source we could confirm.
   ]);
 }
 

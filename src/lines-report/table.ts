@@ -65,7 +65,7 @@ export function formatLineReport(r: LineReport): string {
   add('L′', (x) => si(x.l, 'H/m'));
   add('G′', (x) => si(x.g, 'S/m'));
   add('C′', (x) => si(x.c, 'F/m'));
-  add('Z0', (x) => complexOhm(x.z0));
+  add('Z0 √(Z′/Y′)', (x) => complexOhm(x.z0));
   add('ε_eff (from β)', (x) => (x.epsEff === null ? dash : num(x.epsEff)));
   add('attenuation', (x) => `${num(x.attenuationDbPerM)} dB/m`);
   add('', (x) => `${num(x.attenuationDbPerIn)} dB/in`);
@@ -73,7 +73,7 @@ export function formatLineReport(r: LineReport): string {
   add('skin depth', (x) => (x.skinDepth === null ? dash : si(x.skinDepth, 'm')));
   rows[0][0] = '';
   out.push(...alignRows(rows, ['l', ...r.rows.map((): Align => 'r')]));
-  for (const w of r.warnings) out.push(`  warning: ${w}`);
+  // Out-of-range warnings are printed once per line model, by the caller, with their place in the file.
   return out.join('\n') + '\n';
 }
 

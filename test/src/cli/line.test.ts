@@ -150,13 +150,22 @@ describe('line SCENARIO', () => {
     expect(r.stdout).toContain('2.09 µm'); // copper at 1 GHz (Pozar)
   });
 
-  it('warnings of the scenario go to stderr; --quiet silences them', async () => {
+  it('warnings of the scenario go to stderr, once per line model; --quiet silences them', async () => {
     const wide = scenarioFile({ driver, route: [{ name: 'w', line: { microstrip: { width: '200mm', height: '1mm', thickness: '35um', er: 4.3 } }, length: '1in' }] });
     const r = await line([wide]);
     expect(r.code).toBe(0);
     expect(r.stderr).toMatch(/^warning: .* route\[0\]\.line\.microstrip: .* W\/h = 200 is outside 0\.01 ≤ W\/h ≤ 100/);
-    expect(r.stdout).toMatch(/warning: microstrip: W\/h = 200/); // and in the table
+    expect(r.stdout).not.toMatch(/W\/h = 200/); // not repeated in the table
     expect((await line([wide, '--quiet'])).stderr).toBe('');
+    // two route items on one named model: one warning
+    const shared = scenarioFile({
+      driver,
+      lines: { plank: { microstrip: { width: '200mm', height: '1mm', thickness: '35um', er: 4.3 } } },
+      route: [{ name: 'a', line: 'plank', length: '1in' }, { name: 'b', line: 'plank', length: '2in' }],
+    });
+    const twice = await line([shared]);
+    expect(twice.stderr.match(/W\/h = 200/g)).toHaveLength(1);
+    expect(twice.stdout.match(/W\/h = 200/g)).toBeNull();
   });
 });
 

@@ -218,6 +218,21 @@ describe('problems are listed with key path, value and what was expected', () =>
 });
 
 describe('warnings name the range of validity', () => {
+  it('everyday geometry does not warn: 1 oz copper on 4 and 5 mil of FR-4 (microstrip) and between planes 10 mil apart (stripline)', () => {
+    // 1 oz = 35 µm (IPC, common practice); 4–5 mil prepreg under a surface trace and 1 oz inner layers
+    // are the common PCB stack-ups (common practice). No user-facing message says "from memory".
+    for (const [w, h] of [['7mil', '4mil'], ['9mil', '5mil']]) {
+      const { errors, warnings } = line({ microstrip: { width: w, height: h, thickness: '1oz', er: 4.1, lossTangent: 0.018, at: '1GHz' } });
+      expect(errors).toEqual([]);
+      expect(warnings).toEqual([]);
+    }
+    const { warnings } = line({ stripline: { width: '5mil', planeSpacing: '10mil', thickness: '1oz', er: 4.1 } });
+    expect(warnings).toEqual([]);
+    const wide = line({ stripline: { width: '200mil', planeSpacing: '10mil', thickness: '1oz', er: 4.1 } });
+    expect(wide.warnings).toHaveLength(1);
+    expect(wide.warnings[0][2]).not.toMatch(/memory/);
+  });
+
   it('microstrip W/h = 200 is outside Hammerstad–Jensen 0.01 ≤ W/h ≤ 100 (their stated 0.2 % range)', () => {
     const { rlgc, errors, warnings } = line({ microstrip: { width: '200mm', height: '1mm', thickness: '35um', er: 4.3 } });
     expect(errors).toEqual([]);
