@@ -56,6 +56,11 @@ export interface FreqLine {
   dielectric: FreqDielectric | null;
   /** Surface roughness (Hammerstad factor on the conductor impedance), or null. */
   roughness: Roughness | null;
+  /**
+   * The frequency (Hz) the description's εr, loss tangent and Z0 are given at (a geometry's `at`, a
+   * datasheet's reference); absent for a line built from constant values.
+   */
+  at?: number;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -106,6 +111,18 @@ export function attenuationDbPerM(line: FreqLine, f: number): number {
 /** Phase velocity ω/β (m/s) at f > 0. */
 export function phaseVelocity(line: FreqLine, f: number): number {
   return (2 * Math.PI * f) / z0AndGamma(line, f).gamma.im;
+}
+
+/**
+ * The lossless part of the characteristic impedance at f: √(L∞/C′(f)), C′(f) the real capacitance per
+ * metre of the dispersive dielectric at f (conductor loss, its internal inductance and the dielectric's
+ * loss left out). At the description's reference frequency `at` this is its quasi-static Z0 (the
+ * cross-section formula with εr at `at`; a datasheet's Z0 as given); as f → ∞ it tends to Z0∞.
+ */
+export function losslessZ0(line: FreqLine, f: number): number {
+  let c = line.cInf;
+  if (line.dielectric) c += line.dielectric.cPerEps * (dsEpsilon(line.dielectric.model, 2 * Math.PI * f).re - line.dielectric.model.epsInf);
+  return Math.sqrt(line.lInf / c);
 }
 
 /** R', L', G', C' at frequency f (the DC limits at f = 0). */
@@ -294,6 +311,7 @@ function temLine(p: TemParts, s: LossSpec): FreqLine {
     skinK: perfect ? 0 : skinCoefficient(p.lossFactor, conductivity),
     dielectric,
     roughness: !perfect && (s.roughness ?? 0) > 0 ? { rms: s.roughness!, conductivity } : null,
+    at,
   };
 }
 
@@ -480,7 +498,7 @@ export function fromDatasheet(d: DatasheetSpec): DatasheetLine {
       dielectric = { model, cPerEps: cAir };
       cInf = cAir * model.epsInf;
     }
-    return { rdc, lInf, cInf, gdc: 0, skinK, dielectric, roughness: null };
+    return { rdc, lInf, cInf, gdc: 0, skinK, dielectric, roughness: null, at };
   };
 
   const free: Param[] = (['rdc', 'skinK', 'lossTangent'] as Param[]).filter((p) => !(p === 'rdc' && d.rdc !== undefined));

@@ -12,3 +12,4 @@ export * from './dielectric.js';
 export * from './skin-fit.js';
 export * from './freq-model.js';
 export { leastSquares, nnls, solveDecreasing } from './lsq.js';
+export * from './impedance.js';

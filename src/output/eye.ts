@@ -62,6 +62,7 @@ export async function eyeScenarioFile(file: string, outDir: string, options: Eye
   const result = simulate(net, { force: options.force, limits: options.limits });
   const summary = buildSummary({
     scenario: { file, sha256: scenario.sha256, title: net.title },
+    net,
     discretization: result.discretization,
     record: result.record,
   });

@@ -253,6 +253,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
 
   const summary = buildSummary({
     scenario: { file, sha256: scenario.sha256, title: net.title },
+    net,
     discretization: result.discretization,
     record,
   });

@@ -7,7 +7,9 @@
 // to the next (no timestamps, no wall time), so the same scenario and tool version give the same
 // bytes.
 import { createHash } from 'node:crypto';
-import { probeTraces, type Discretization, type ProbeRecord } from '../../sim/result.js';
+import { lineImpedance } from '../../sim/lines/impedance.js';
+import type { Net } from '../../sim/model.js';
+import { probeTraces, type Discretization, type ProbeRecord, type SegmentPlan } from '../../sim/result.js';
 import { probeStats, type ProbeStats } from './crossing.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 
@@ -30,11 +32,25 @@ export interface RecordInfo {
   end: number;
 }
 
+/**
+ * A segment of summary.json: the engine's plan, with Z0 as the `line` command prints it — `z0` quasi-
+ * static at `z0At` Hz (`z0Basis` "quasi-static") for a line with frequency-dependent loss, or √(L′/C′)
+ * at every frequency (`z0Basis` "constant", `z0At` null) — and the high-frequency limit √(L∞/C∞).
+ */
+export type SummarySegment = Omit<SegmentPlan, 'z0'> & {
+  z0: number;
+  z0Basis: 'quasi-static' | 'constant' | 'high-frequency limit';
+  z0At: number | null;
+  z0HighFrequency: number;
+};
+
+export type SummaryDiscretization = Omit<Discretization, 'segments'> & { segments: SummarySegment[] };
+
 export interface Summary {
   format: number;
   tool: ToolInfo;
   scenario: ScenarioInfo;
-  discretization: Discretization;
+  discretization: SummaryDiscretization;
   record: RecordInfo;
   /** Keyed by probe name, in probe order. */
   probes: Record<string, ProbeStats>;
@@ -44,6 +60,8 @@ export interface Summary {
 
 export interface SummaryInput {
   scenario: ScenarioInfo;
+  /** The net as simulated: its lines give each segment's Z0 figures. */
+  net: Net;
   discretization: Discretization;
   record: ProbeRecord;
   /** Defaults to this package's name and version. */
@@ -67,10 +85,29 @@ export function buildSummary(input: SummaryInput): Summary {
     format: SUMMARY_FORMAT,
     tool: input.tool ?? toolInfo(),
     scenario: { ...input.scenario },
-    discretization: input.discretization,
+    discretization: { ...input.discretization, segments: labelledSegments(input.discretization.segments, input.net) },
     record: { samples, dtSample: record.dtSample, end: (samples - 1) * record.dtSample },
     probes,
   };
+}
+
+/** The plan's segments with the Z0 figures of their lines (see SummarySegment), keys in a fixed order. */
+function labelledSegments(segments: readonly SegmentPlan[], net: Net): SummarySegment[] {
+  const lines = new Map(net.route.flatMap((it) => (it.kind === 'line' ? [[it.name, it.line] as const] : [])));
+  return segments.map((seg) => {
+    const line = lines.get(seg.name);
+    if (!line) throw new Error(`summary: no line '${seg.name}' in the net`);
+    const z = lineImpedance(line);
+    const { loss, ...plan } = seg;
+    return {
+      ...plan,
+      z0: z.z0,
+      z0Basis: z.basis,
+      z0At: z.at,
+      z0HighFrequency: z.highFrequency,
+      ...(loss ? { loss } : {}),
+    };
+  });
 }
 
 /** Adds a top-level section; refuses to replace one that is already there. */

@@ -79,8 +79,10 @@ export function buildReport(input: ReportInput): string {
       (net.description ? `<p class="description">${esc(net.description)}</p>` : ''),
   );
   parts.push(`<section id="route"><h2>Route</h2><div class="strip">${routeSvg(net)}</div>
-<p class="muted">From the driver pin (left) to the receiver (right). Z0 and TD (one-way delay) are each segment’s
-high-frequency characteristic impedance and delay.</p></section>`);
+<p class="muted">From the driver pin (left) to the receiver (right). TD is each segment’s one-way delay at high frequency.
+Z0 is √(L′/C′) for a line of constant R′, L′, G′, C′; for a line with frequency-dependent loss it is the quasi-static value
+at the frequency shown (the one its description is given at), with R′ at the same frequency, and Z0∞ is its high-frequency limit
+(the same figures as <code>ladderwave line</code> and summary.json).</p></section>`);
 
   const checks = checksTable(summary);
   if (checks) {

@@ -2,6 +2,8 @@
 // each line segment as a long box with its Z0, one-way delay and length, series parts as impedance
 // boxes in the signal path, shunt parts as branches to ground or to their rail, and the receiver's
 // parts (or an open end). Widths follow the longest label, so nothing overlaps.
+import { rlgcAt } from '../../sim/lines/freq-model.js';
+import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { LineRLGC, Net, Part, RouteItem, Signal } from '../../sim/model.js';
 import { formatSI } from '../units.js';
 import { attr, esc } from './html.js';
@@ -18,8 +20,19 @@ export function describePart(p: Part, withRail = true): string {
   return withRail && p.rail !== 0 ? `${body} to ${si(p.rail, 'V')}` : body;
 }
 
-export function lineZ0(line: LineRLGC): number {
-  return Math.sqrt(line.l / line.c);
+/**
+ * The Z0 and R′ texts of a line, as the `line` command and summary.json give them: the quasi-static Z0
+ * and R′ at the description's frequency, and Z0∞, for a line with frequency-dependent loss; Z0 and the
+ * constant R′ otherwise.
+ */
+export function lineFigures(line: LineRLGC): string[] {
+  const z = lineImpedance(line);
+  const ohm = (v: number) => formatSI(v, 'Ω', 4); // the precision of `line` and the report's tables
+  if (z.basis === 'constant') return [`Z0 ${ohm(z.z0)}`, ...(line.r ? [`R′ ${si(line.r, 'Ω/m')}`] : [])];
+  if (z.at === null) return [`Z0∞ ${ohm(z.highFrequency)} (high-frequency limit)`];
+  const at = si(z.at, 'Hz');
+  const r = line.wideband ? rlgcAt(line.wideband, z.at).r : line.r;
+  return [`Z0 ${ohm(z.z0)} at ${at} · Z0∞ ${ohm(z.highFrequency)}`, ...(r ? [`R′ ${si(r, 'Ω/m')} at ${at}`] : [])];
 }
 
 export function lineDelay(line: LineRLGC, length: number): number {
@@ -117,8 +130,8 @@ function driverBlock(net: Net): Block {
 
 function lineBlock(item: Extract<RouteItem, { kind: 'line' }>): Block {
   const { line } = item;
-  const details = [`Z0 ${si(lineZ0(line), 'Ω')}`, `TD ${si(lineDelay(line, item.length), 's')} · ${si(item.length, 'm')}`];
-  if (line.r) details.push(`R′ ${si(line.r, 'Ω/m')}`);
+  const [z0, ...rest] = lineFigures(line);
+  const details = [z0, `TD ${si(lineDelay(line, item.length), 's')} · ${si(item.length, 'm')}`, ...rest];
   if (line.series?.length || line.shunt?.length || line.wideband) details.push('frequency-dependent loss');
   const w = widthFor([item.name, ...details], 150);
   const svg =

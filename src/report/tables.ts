@@ -17,7 +17,18 @@ export interface ReportSummary {
     cells: number;
     nodes: number;
     dtReason: string;
-    segments: { name: string; length: number; cells: number; cellLength: number; delay: number; z0: number; courant: number }[];
+    segments: {
+      name: string;
+      length: number;
+      cells: number;
+      cellLength: number;
+      delay: number;
+      z0: number;
+      z0Basis?: string;
+      z0At?: number | null;
+      z0HighFrequency?: number;
+      courant: number;
+    }[];
   };
   probes?: Record<string, { min: number; max: number; final: number; crossing50: { time: number | null; level: number } }>;
   [section: string]: Json;
@@ -269,17 +280,20 @@ export function discretizationTables(summary: ReportSummary): string {
   if (!d.segments?.length) return overview + reason;
   const seg = renderTable(
     'segments',
-    ['Segment', 'Length', 'Z0', 'Delay', 'Cells', 'Cell length', 'Courant'],
+    ['Segment', 'Length', 'Z0', 'Z0 holds at', 'Z0∞', 'Delay', 'Cells', 'Cell length', 'Courant'],
     d.segments.map((s, i) => [
       textCell(s.name),
       numCell(summary, ['discretization', 'segments', i, 'length'], 'm'),
       numCell(summary, ['discretization', 'segments', i, 'z0'], 'Ω'),
+      isNum(s.z0At) ? numCell(summary, ['discretization', 'segments', i, 'z0At'], 'Hz') : textCell(s.z0Basis === 'constant' ? 'every frequency' : (s.z0Basis ?? '—')),
+      numCell(summary, ['discretization', 'segments', i, 'z0HighFrequency'], 'Ω'),
       numCell(summary, ['discretization', 'segments', i, 'delay'], 's'),
       numCell(summary, ['discretization', 'segments', i, 'cells'], ''),
       numCell(summary, ['discretization', 'segments', i, 'cellLength'], 'm'),
       { text: isNum(s.courant) ? s.courant.toFixed(4) : '—', path: ['discretization', 'segments', i, 'courant'], value: isNum(s.courant) ? s.courant : null, className: 'num' },
     ]),
-    'Courant number v·Δt/Δz per segment: at most 1 for stability; exactly 1 is free of numerical dispersion on a lossless line.',
+    'Z0: quasi-static at the frequency shown for a line with frequency-dependent loss, √(L′/C′) at every frequency for a constant line; Z0∞: the high-frequency limit. ' +
+      'Courant number v·Δt/Δz per segment: at most 1 for stability; exactly 1 is free of numerical dispersion on a lossless line.',
   );
   return overview + reason + seg;
 }

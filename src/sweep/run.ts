@@ -147,7 +147,7 @@ async function writePointRun(plan: SweepPlan, point: number, dir: string, what: 
   const net = pointNet(plan, point);
   const result = simulate(net, { force: opts.force });
   const title = `${net.title} — ${what}: point ${point}, ${describeAssignments(pointAssignments(plan, point))}`;
-  const summary = buildSummary({ scenario: { file: plan.scenario.file, sha256: plan.scenario.sha256, title }, discretization: result.discretization, record: result.record });
+  const summary = buildSummary({ scenario: { file: plan.scenario.file, sha256: plan.scenario.sha256, title }, net, discretization: result.discretization, record: result.record });
   addMeasurementSections(summary, net, result);
   const png = await renderResult(title, result, opts);
   return writeRunOutputs(dir, { title, result, summary }, png);

@@ -3,6 +3,8 @@ import { describe, expect, it } from 'vitest';
 import type { Discretization, ProbeRecord } from '../../../sim/result.js';
 import { crossing50, probeStats } from '../../../src/output/crossing.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson } from '../../../src/output/summary.js';
+import { fromMicrostrip } from '../../../sim/lines/freq-model.js';
+import { lineOf, net as testNet, stepSignal } from '../../support/nets.js';
 
 describe('first 50 % crossing (analytic linear ramps)', () => {
   it('finds a rising ramp crossing exactly at its midpoint when a sample sits there', () => {
@@ -63,8 +65,11 @@ describe('summary.json', () => {
     dtSample: 2e-11,
     values: ndarray(new Float64Array([0, 0.5, 1, 1.5, 2, 0, 1, 3, 1, 0]), [2, 5]),
   };
+  // the segment's line: 50 Ω, 0.4 ns/m (a constant line: Z0 = √(L′/C′) at every frequency)
+  const demoNet = testNet({ signal: stepSignal(1, 1e-10), rs: 50, route: [{ kind: 'line', name: 'trace', line: lineOf(50, 4e-10), length: 0.1 }] });
   const summary = buildSummary({
     scenario: { file: 'nets/demo.json', sha256: sha256Hex('{"title":"t"}'), title: 'Demo net' },
+    net: demoNet,
     discretization,
     record,
   });
@@ -81,8 +86,11 @@ describe('summary.json', () => {
     expect(summary.format).toBe(1);
   });
 
-  it('holds the discretization and the record layout', () => {
-    expect(summary.discretization).toEqual(discretization);
+  it('holds the discretization and the record layout, each segment with its labelled Z0', () => {
+    const { segments, ...rest } = summary.discretization;
+    const { segments: planned, ...plan } = discretization;
+    expect(rest).toEqual(plan);
+    expect(segments).toEqual([{ ...planned[0], z0: expect.closeTo(50, 12), z0Basis: 'constant', z0At: null, z0HighFrequency: expect.closeTo(50, 12) }]);
     expect(summary.record).toEqual({ samples: 5, dtSample: 2e-11, end: 8e-11 });
   });
 
@@ -101,7 +109,7 @@ describe('summary.json', () => {
   });
 
   it('takes extra sections from other modules and serializes to plain JSON', () => {
-    const s = buildSummary({ scenario: summary.scenario, discretization, record });
+    const s = buildSummary({ scenario: summary.scenario, net: demoNet, discretization, record });
     addSummarySection(s, 'measurements', { rx: { overshoot: 0.1 } });
     expect(() => addSummarySection(s, 'probes', {})).toThrow(/already/);
     const back = JSON.parse(summaryToJson(s));
@@ -109,5 +117,25 @@ describe('summary.json', () => {
     expect(back.probes.rx.crossing50.time).toBeNull();
     expect(summaryToJson(s).endsWith('}\n')).toBe(true);
     expect(Object.keys(back)).toEqual(['format', 'tool', 'scenario', 'discretization', 'record', 'probes', 'measurements']);
+  });
+});
+
+describe('summary.json: a segment’s Z0 is the figure `line` prints', () => {
+  it('gives a geometry line’s quasi-static Z0 at its reference frequency and the high-frequency limit, not the engine’s fitted value', () => {
+    // FR-4 microstrip, 1 oz on 5 mil: the quasi-static Hammerstad–Jensen Z0 at 1 GHz (what `line` prints
+    // first) and √(L∞/C∞) (its "high-frequency limit" line).
+    const b = fromMicrostrip({ width: 9 * 25.4e-6, height: 5 * 25.4e-6, thickness: 35e-6, er: 4.1, lossTangent: 0.018, at: 1e9 });
+    const line = { r: b.line.rdc, l: b.line.lInf, g: 0, c: b.line.cInf, wideband: b.line };
+    const n = testNet({ signal: stepSignal(1, 1e-10), rs: 20, route: [{ kind: 'line', name: 'top', line, length: 0.0254 }] });
+    const d: Discretization = {
+      dt: 1e-12, steps: 1, duration: 1e-12, cells: 1, nodes: 2, dtReason: 'test',
+      segments: [{ name: 'top', length: 0.0254, cells: 1, cellLength: 0.0254, delay: 1e-10, z0: 51.3, courant: 1 }],
+    };
+    const record: ProbeRecord = { names: ['p'], dtSample: 1e-12, values: ndarray(new Float64Array([0, 1]), [1, 2]) };
+    const seg = buildSummary({ scenario: { file: 'f', sha256: 'x', title: 't' }, net: n, discretization: d, record }).discretization.segments[0];
+    expect(seg.z0).toBeCloseTo(b.z0, 9);
+    expect(seg.z0Basis).toBe('quasi-static');
+    expect(seg.z0At).toBe(1e9);
+    expect(seg.z0HighFrequency).toBeCloseTo(Math.sqrt(b.line.lInf / b.line.cInf), 9);
   });
 });

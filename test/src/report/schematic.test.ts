@@ -2,6 +2,8 @@
 // Engineering, §2.1), and all names escaped.
 import { describe, expect, it } from 'vitest';
 import { describePart, routeSvg } from '../../../src/report/schematic.js';
+import { fromMicrostrip, rlgcAt } from '../../../sim/lines/freq-model.js';
+import { formatSI } from '../../../src/units.js';
 import { lineOf, net, part, stepSignal } from '../../support/nets.js';
 
 describe('routeSvg', () => {
@@ -46,5 +48,19 @@ describe('routeSvg', () => {
   it('describes parts as their elements in series', () => {
     expect(describePart(part({ r: 56, c: 100e-12 }))).toBe('R 56 Ω + C 100 pF');
     expect(describePart(part({}))).toBe('short (0 Ω)');
+  });
+
+  it('labels a skin-effect line’s Z0 and R′ with the frequency they hold at, not the DC resistance', () => {
+    // FR-4 microstrip, 1 oz on 5 mil, εr 4.1 at 1 GHz: R′ at 1 GHz is several times R_dc (skin effect,
+    // Pozar §2.7: R_s = √(ωµ0/2σ)); the strip shows the 1 GHz value, labelled, and the quasi-static Z0
+    // (Hammerstad–Jensen) at the same frequency, as `line` prints them.
+    const b = fromMicrostrip({ width: 9 * 25.4e-6, height: 5 * 25.4e-6, thickness: 35e-6, er: 4.1, lossTangent: 0.018, at: 1e9 });
+    const line = { r: b.line.rdc, l: b.line.lInf, g: 0, c: b.line.cInf, wideband: b.line };
+    const strip = routeSvg(net({ signal: stepSignal(1, 1e-10), rs: 20, route: [{ kind: 'line', name: 'top', line, length: 0.0254 }] }));
+    const r1g = rlgcAt(b.line, 1e9).r;
+    expect(r1g).toBeGreaterThan(3 * b.line.rdc);
+    expect(strip).toContain(`R′ ${formatSI(r1g, 'Ω/m', 3)} at 1 GHz`);
+    expect(strip).not.toContain(`R′ ${formatSI(b.line.rdc, 'Ω/m', 3)}`);
+    expect(strip).toContain(`Z0 ${formatSI(b.z0, 'Ω', 4)} at 1 GHz`);
   });
 });
