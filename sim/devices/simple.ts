@@ -72,9 +72,10 @@ export function squareLawTable(supply: number, current: number, atVoltage: numbe
   const k = current / (vov * atVoltage - (atVoltage * atVoltage) / 2);
   const law = (v: number) => (v < 0 ? k * vov * v : v < vov ? k * (vov * v - (v * v) / 2) : (k * vov * vov) / 2);
   const points: Array<[number, number]> = [];
-  const n = 40;
+  // −V_s … 2·V_s in steps of V_s/14, so 0 V is a table point (the transistor carries nothing at its rail)
+  const n = 42;
   for (let m = 0; m <= n; m++) {
-    const v = -supply + (3 * supply * m) / n;
+    const v = (supply * (m - 14)) / 14;
     points.push([v, law(v)]);
   }
   return ivTable(points);

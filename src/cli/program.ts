@@ -4,6 +4,7 @@
 import { Command, CommanderError } from 'commander';
 import { toolInfo } from '../output/tool.js';
 import { registerLineCommand } from './commands/line.js';
+import { registerDeviceCommand } from './commands/device.js';
 import { registerRunCommand } from './commands/run.js';
 import { registerTdrCommand } from './commands/tdr.js';
 import { registerEyeCommand } from './commands/eye.js';
@@ -32,6 +33,7 @@ export function createProgram(ctx: CliContext): Command {
   registerTdrCommand(program, ctx);
   registerEyeCommand(program, ctx);
   registerLineCommand(program, ctx);
+  registerDeviceCommand(program, ctx);
   registerCheckCommand(program, ctx);
   registerSweepCommand(program, ctx);
   registerMergeCommand(program, ctx);
