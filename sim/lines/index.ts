@@ -13,3 +13,5 @@ export * from './skin-fit.js';
 export * from './freq-model.js';
 export { leastSquares, nnls, solveDecreasing } from './lsq.js';
 export * from './impedance.js';
+export * from './coupled-microstrip.js';
+export * from './coupled-stripline.js';

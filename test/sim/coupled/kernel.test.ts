@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { advanceCoupledSection, buildCoupledSection, coupledCoefficients, planCoupledCells, type CoupledSection } from '../../../sim/coupled/kernel.js';
+import { advanceCoupledSection, buildCoupledSection, coupledCoefficients, planCoupledCells, setCoupledDcState, type CoupledSection } from '../../../sim/coupled/kernel.js';
 import type { CoupledLine } from '../../../sim/coupled/line.js';
 import { fromRows } from '../../../sim/coupled/matrix.js';
 import { pairMetrics } from '../../../sim/coupled/modes.js';
@@ -333,4 +333,29 @@ describe('against the spectral solution', () => {
       expect(Math.max(...ref.far[1].map(Math.abs))).toBeGreaterThan(0.01); // the victim does see crosstalk
     });
   }
+});
+
+describe('DC start', () => {
+  // At DC the update's fixed point is R·Δz·I_n = V_n − V_n+1 and G·Δz·V_n = I_n−1 − I_n (the telegrapher
+  // equations with ∂/∂t = 0, Paul); a state that satisfies it must not move when stepped with its ends held.
+  // With G = 0 the current is uniform and V falls linearly, V(z) = V0 − R·I·z (Ohm's law per metre).
+  it('the marched DC state is a fixed point of the update, and linear when G = 0', () => {
+    const line: CoupledLine = { ...inhomogeneousPair(), r: fromRows([[8, 1], [1, 6]]), g: fromRows([[2e-3, -3e-4], [-3e-4, 1.5e-3]]) };
+    const s = buildCoupledSection(line, 0.3, 150, 1e-12);
+    setCoupledDcState(s, line, [1.2, -0.4], [0.02, 0.005]);
+    const before = { v: Float64Array.from(s.v), i: Float64Array.from(s.i) };
+    const ends = Float64Array.from([s.v[0], s.v[1], s.v[300], s.v[301]]);
+    for (let n = 0; n < 50; n++) advanceCoupledSection(s, ends);
+    for (let e = 0; e < s.v.length; e++) expect(s.v[e]).toBeCloseTo(before.v[e], 12);
+    for (let e = 0; e < s.i.length; e++) expect(s.i[e]).toBeCloseTo(before.i[e], 14);
+    expect(before.i[298]).not.toBeCloseTo(0.02, 4); // G drained some current on the way
+
+    const lossless = { ...line, g: undefined };
+    const t = buildCoupledSection(lossless, 0.3, 150, 1e-12);
+    setCoupledDcState(t, lossless, [1.2, -0.4], [0.02, 0.005]);
+    // far end: V = V0 − R·I·ℓ = 1.2 − (8·0.02 + 1·0.005)·0.3 and −0.4 − (1·0.02 + 6·0.005)·0.3
+    expect(t.v[300]).toBeCloseTo(1.2 - 0.165 * 0.3, 12);
+    expect(t.v[301]).toBeCloseTo(-0.4 - 0.05 * 0.3, 12);
+    expect(t.i[298]).toBe(0.02);
+  });
 });
