@@ -39,3 +39,20 @@ export { measureEye, eyeRunDuration, eyeTiming, type EyeInput, type EyeMeasureme
 export { eyeScenarioFile, EyeRequestError, EYE_FILES, type EyeRunOptions, type EyeRunReport } from './output/eye.js';
 export { writeRunFiles, selectProbes, type OutputFile } from './output/run.js';
 export { buildReport, REPORT_FILE, type ReportImage, type ReportInput } from './report/index.js';
+
+// Coupled sections (crosstalk, differential pairs): matrices, modes and the `line` report. The engine
+// parts are standalone and not yet wired into runs (docs/coupled-lines.md).
+export {
+  coupledFromMicrostrip,
+  coupledFromStripline,
+  coupledLineProblems,
+  maxwellFromMutual,
+  modalAnalysis,
+  mutualFromMaxwell,
+  pairFromModes,
+  pairMetrics,
+  type CoupledLine,
+  type ModalAnalysis,
+  type PairMetrics,
+} from '../sim/coupled/index.js';
+export { coupledFromOption, evaluateCoupled, formatCoupledReport, type CoupledInput, type CoupledReport } from './lines-report/index.js';

@@ -3,6 +3,7 @@
 import { INCH } from '../../sim/lines/constants.js';
 import { formatSI } from '../units.js';
 import { alignColumns as alignRows, type Align } from '../text/columns.js';
+import type { CoupledReport } from './coupled.js';
 import type { FrequencyRow, LineReport } from './evaluate.js';
 
 export { alignColumns as alignRows } from '../text/columns.js';
@@ -92,9 +93,8 @@ export function formatLineReports(reports: readonly LineReport[]): string {
   return reports.map(formatLineReport).join('\n');
 }
 
-/** JSON for the reports: SI numbers; values JSON cannot hold (∞) become null. */
-export function lineReportsToJson(reports: readonly LineReport[], frequencies: readonly number[]): string {
-  return (
-    JSON.stringify({ frequencies: [0, ...frequencies], lines: reports }, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n'
-  );
+/** JSON for the reports: SI numbers; values JSON cannot hold (∞) become null. Coupled sections under "coupled", when there are any. */
+export function lineReportsToJson(reports: readonly LineReport[], frequencies: readonly number[], coupled: readonly CoupledReport[] = []): string {
+  const body = coupled.length ? { frequencies: [0, ...frequencies], lines: reports, coupled } : { frequencies: [0, ...frequencies], lines: reports };
+  return JSON.stringify(body, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? null : v), 2) + '\n';
 }

@@ -4,7 +4,22 @@
 // length, the high-frequency limit, R′ L′ G′ C′, Z0, attenuation and skin depth at DC and at the
 // chosen frequencies — as an aligned table, or JSON with --json.
 import type { Command } from 'commander';
-import { DEFAULT_REPORT_FREQUENCIES, evaluateLine, formatLineReports, GEOMETRY_OPTIONS, lineFromOption, lineReportsToJson, linesFromScenario, type LineInput } from '../../lines-report/index.js';
+import {
+  COUPLED_OPTIONS,
+  coupledFromOption,
+  DEFAULT_REPORT_FREQUENCIES,
+  evaluateCoupled,
+  evaluateLine,
+  formatCoupledReport,
+  formatLineReports,
+  GEOMETRY_OPTIONS,
+  lineFromOption,
+  lineReportsToJson,
+  linesFromScenario,
+  type CoupledForm,
+  type CoupledInput,
+  type LineInput,
+} from '../../lines-report/index.js';
 import { formatProblem, type Problem } from '../../scenario/problems.js';
 import { POSITIVE, parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
@@ -19,7 +34,13 @@ export interface LineCommandOptions {
   stripline?: string[];
   coax?: string[];
   twoWire?: string[];
+  coupledMicrostrip?: string[];
+  coupledStripline?: string[];
+  coupledModes?: string[];
 }
+
+/** `coupled-microstrip` → the commander option key `coupledMicrostrip`. */
+const optionKey = (form: CoupledForm) => form.replace(/-(\w)/g, (_m, c: string) => c.toUpperCase()) as 'coupledMicrostrip' | 'coupledStripline' | 'coupledModes';
 
 /** "100MHz,1GHz,10GHz" → Hz; a bad entry is a usage error naming it. */
 export function parseFrequencyList(text: string): number[] {
@@ -40,8 +61,11 @@ export async function lineCommand(scenario: string | undefined, opts: LineComman
   try {
     const freqs = opts.freq !== undefined ? parseFrequencyList(opts.freq) : [...DEFAULT_REPORT_FREQUENCIES];
     const given = GEOMETRY_OPTIONS.flatMap((kind) => (opts[kind] ?? []).map((pairs, i, all) => ({ kind, pairs, name: all.length > 1 ? `${kind}#${i + 1}` : kind })));
-    if (scenario === undefined && given.length === 0) {
-      throw new UsageError(`give a scenario file, or a line with ${GEOMETRY_OPTIONS.map((k) => `--${k}`).join(', ')} (for example --microstrip width=8mil,height=5mil,thickness=1oz,er=4.3,lossTangent=0.02)`);
+    const coupledGiven = COUPLED_OPTIONS.flatMap((form) => (opts[optionKey(form)] ?? []).map((pairs, i, all) => ({ form, pairs, name: all.length > 1 ? `${form}#${i + 1}` : form })));
+    if (scenario === undefined && given.length === 0 && coupledGiven.length === 0) {
+      throw new UsageError(
+        `give a scenario file, or a line with ${[...GEOMETRY_OPTIONS, ...COUPLED_OPTIONS].map((k) => `--${k}`).join(', ')} (for example --microstrip width=8mil,height=5mil,thickness=1oz,er=4.3,lossTangent=0.02)`,
+      );
     }
     if (opts.item && scenario === undefined) throw new UsageError('--item picks lines of a scenario file: give one');
 
@@ -65,11 +89,18 @@ export async function lineCommand(scenario: string | undefined, opts: LineComman
       lines.push(...s.lines);
       warnings.push(...s.warnings);
     }
+    const coupled: CoupledInput[] = [];
+    for (const c of coupledGiven) {
+      const s = coupledFromOption(c.form, c.pairs, c.name);
+      coupled.push(s.input);
+      warnings.push(...s.warnings);
+    }
     if (!opts.quiet) for (const w of warnings) io.err(`warning: ${formatProblem(w)}\n`);
     const reports = lines.map((l) => evaluateLine(l, freqs));
-    if (opts.json) io.out(lineReportsToJson(reports, freqs));
-    else if (reports.length === 0) io.out(`${scenario}: no lines (the route has only lumped parts)\n`);
-    else io.out(formatLineReports(reports));
+    const coupledReports = coupled.map(evaluateCoupled);
+    if (opts.json) io.out(lineReportsToJson(reports, freqs, coupledReports));
+    else if (reports.length === 0 && coupledReports.length === 0) io.out(`${scenario}: no lines (the route has only lumped parts)\n`);
+    else io.out([...(reports.length ? [formatLineReports(reports)] : []), ...coupledReports.map(formatCoupledReport)].join('\n'));
     return EXIT.ok;
   } catch (e) {
     const f = describeFailure(e);
@@ -90,6 +121,10 @@ export function registerLineCommand(program: Command, ctx: CliContext): void {
         'and skin depth at DC and at the chosen frequencies.\n' +
         'Geometry options take the keys of the scenario form as key=value pairs, e.g.\n' +
         '  ladderwave line --microstrip width=8mil,height=5mil,thickness=1oz,er=4.3,lossTangent=0.02\n' +
+        'A coupled pair (--coupled-microstrip, --coupled-stripline, --coupled-modes) prints its L and C matrices,\n' +
+        'modal velocities and impedances, Z_odd, Z_even, Z_diff, Z_comm and the coupling coefficients K_b, K_f:\n' +
+        '  ladderwave line --coupled-microstrip width=5mil,spacing=6mil,height=4mil,er=4.2\n' +
+        '  ladderwave line --coupled-modes zOdd=45ohm,zEven=56ohm,delayOdd=150ps/in,delayEven=160ps/in\n' +
         'Exit codes: 0 ok, 2 bad input or usage, 1 internal error.',
     )
     .argument('[scenario]', 'scenario file (JSON or YAML)')
@@ -98,6 +133,9 @@ export function registerLineCommand(program: Command, ctx: CliContext): void {
     .option('--freq <list>', 'frequencies, comma-separated (default 100MHz,1GHz,10GHz)')
     .option('-q, --quiet', 'do not print warnings');
   for (const kind of GEOMETRY_OPTIONS) cmd.option(`--${kind} <pairs>`, `a ${kind} as key=value pairs (repeatable)`, collect);
+  cmd.option('--coupled-microstrip <pairs>', 'an edge-coupled microstrip pair: width, spacing, height, er (repeatable)', collect);
+  cmd.option('--coupled-stripline <pairs>', 'an edge-coupled centred stripline pair: width, spacing, planeSpacing, er (repeatable)', collect);
+  cmd.option('--coupled-modes <pairs>', 'a symmetric pair from zOdd, zEven and delayOdd/delayEven or velocityOdd/velocityEven (repeatable)', collect);
   cmd.action(async (scenario: string | undefined, opts: LineCommandOptions) => {
     ctx.exitCode = await lineCommand(scenario, opts, ctx);
   });
