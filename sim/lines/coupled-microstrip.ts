@@ -65,7 +65,9 @@ function checkGeometry(g: CoupledMicrostripGeometry): void {
 }
 
 export function coupledMicrostripValidity(g: CoupledMicrostripGeometry): Validity {
-  const source = 'Kirschning–Jansen 1984, static even/odd ε_eff and Z (stated range and accuracy from memory: within about 1 %)';
+  // The range and the accuracy (about 1 %) are recalled, not confirmed (from memory); our field-solution
+  // check (docs/coupled-lines.md) agrees within 0.4 % inside it. The message a user sees names the paper only.
+  const source = 'Kirschning–Jansen 1984: static even/odd ε_eff and Z within about 1 %';
   return validity('coupled microstrip', [
     rangeCheck('W/h', g.width / g.height, 0.1, 10, source),
     rangeCheck('S/h', g.spacing / g.height, 0.1, 10, source),

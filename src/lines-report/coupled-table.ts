@@ -70,6 +70,6 @@ export function formatCoupledReport(r: CoupledReport): string {
   }
   out.push(`  fastest mode ${num(r.fastestVelocity / C0)}c (${si(r.fastestVelocity, 'm/s')}): it sets the time step of a run (Courant)${r.maxFrequency !== null ? `; quasi-TEM model up to about ${si(r.maxFrequency, 'Hz', 3)}` : ''}`);
   out.push('  weak-coupling estimates for matched lines; engineering estimates, not measurements');
-  for (const w of r.warnings) out.push(`  warning: ${w}`);
+  // Warnings are printed once, by the caller (on stderr), as for single lines.
   return out.join('\n') + '\n';
 }

@@ -22,7 +22,7 @@ export interface CoupledInput {
   line: CoupledLine;
   /** The parsed inputs (m, ohm, s/m, plain numbers). */
   inputs: Record<string, number>;
-  /** Out-of-range warnings of the geometry's formulas. */
+  /** Out-of-range warnings of the geometry's formulas, and warnings about the matrices. */
   warnings: string[];
   /** Upper frequency of the quasi-TEM model (Hz), when known. */
   maxFrequency?: number;
@@ -98,7 +98,7 @@ export function evaluateCoupled(input: CoupledInput): CoupledReport {
     pairs,
     fastestVelocity: modal.fastestVelocity,
     maxFrequency: input.maxFrequency !== undefined && Number.isFinite(input.maxFrequency) ? input.maxFrequency : null,
-    warnings: [...input.warnings, ...coupledLineWarnings(line)],
+    warnings: [...input.warnings],
   };
 }
 
@@ -201,6 +201,7 @@ export function coupledFromOption(form: CoupledForm, text: string, name: string 
     }
   }
   if (input) for (const p of coupledLineProblems(input.line)) problems.add(joinKey(origin, p.path), '(derived)', p.message);
+  if (input) input.warnings.push(...coupledLineWarnings(input.line));
   if (!input || problems.count > 0) throw new ScenarioError(problems.sorted(), problems.warnings);
   return { input, warnings: input.warnings.map((w) => ({ file: '(command line)', path: origin, value: text, expected: `a description inside the model's range of validity — ${w}` })) };
 }
