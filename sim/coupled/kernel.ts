@@ -223,36 +223,44 @@ function advancePair(s: CoupledSection): void {
   }
 }
 
-/** Any k: the same update with the k×k products as loops (summed in the same order as advancePair). */
+/**
+ * Any k: the same update with the k×k products as loops (summed in the same order as advancePair).
+ * Scratch holds the old voltages of node n, then two current slots that swap roles each cell (the
+ * new currents of cell n − 1 and of cell n), then V_n − V_n+1 / I_in − I_out: offsets, no copies.
+ */
 function advanceAny(s: CoupledSection): void {
-  const { k, v, i, coef, cells, scratch } = s;
+  const { k, v, i, coef, cells, scratch: w } = s;
   const kk = k * k;
-  const old = scratch.subarray(0, k); // old voltages of node n
-  const left = scratch.subarray(k, 2 * k); // new currents of cell n − 1
-  const diff = scratch.subarray(2 * k, 3 * k); // V_n − V_n+1, then I_in − I_out
-  const right = scratch.subarray(3 * k, 4 * k); // new currents of cell n
+  const old = 0;
+  const diff = 3 * k;
+  let left = k;
+  let right = 2 * k;
   for (let n = 0; n < cells; n++) {
     const p = n * k;
     for (let c = 0; c < k; c++) {
-      old[c] = v[p + c];
-      diff[c] = v[p + c] - v[p + k + c];
+      w[old + c] = v[p + c];
+      w[diff + c] = v[p + c] - v[p + k + c];
     }
     for (let r = 0; r < k; r++) {
-      let acc = coef[r * k] * i[p];
-      for (let c = 1; c < k; c++) acc += coef[r * k + c] * i[p + c];
-      for (let c = 0; c < k; c++) acc += coef[kk + r * k + c] * diff[c];
-      right[r] = acc;
+      const row = r * k;
+      let acc = coef[row] * i[p];
+      for (let c = 1; c < k; c++) acc += coef[row + c] * i[p + c];
+      for (let c = 0; c < k; c++) acc += coef[kk + row + c] * w[diff + c];
+      w[right + r] = acc;
     }
-    for (let c = 0; c < k; c++) i[p + c] = right[c];
+    for (let c = 0; c < k; c++) i[p + c] = w[right + c];
     if (n > 0) {
-      for (let c = 0; c < k; c++) diff[c] = left[c] - right[c];
+      for (let c = 0; c < k; c++) w[diff + c] = w[left + c] - w[right + c];
       for (let r = 0; r < k; r++) {
-        let acc = coef[2 * kk + r * k] * old[0];
-        for (let c = 1; c < k; c++) acc += coef[2 * kk + r * k + c] * old[c];
-        for (let c = 0; c < k; c++) acc += coef[3 * kk + r * k + c] * diff[c];
+        const row = 2 * kk + r * k;
+        let acc = coef[row] * w[old];
+        for (let c = 1; c < k; c++) acc += coef[row + c] * w[old + c];
+        for (let c = 0; c < k; c++) acc += coef[kk + row + c] * w[diff + c];
         v[p + r] = acc;
       }
     }
-    left.set(right);
+    const t = left;
+    left = right;
+    right = t;
   }
 }

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { simulate } from '../../sim/simulate.js';
 import type { Net } from '../../sim/model.js';
 import { loadScenario } from '../../src/scenario/load.js';
+import { advanceCoupledSection, buildCoupledSection, coupledFastestDelay } from '../../sim/coupled/kernel.js';
 
 /** Four R‖L sections and four R–C branches per cell, as a realised lossy line carries (values illustrative). */
 const LOSS_TERMS = {
@@ -39,6 +40,27 @@ function kernelBench(cells: number, lossy = false): { nsPerCellStep: number; ste
   return { nsPerCellStep: ns / (res.discretization.steps * res.discretization.nodes), steps: res.discretization.steps };
 }
 
+/** The coupled kernel alone (ends held at rest, a disturbance inside), per conductor-cell-step. */
+function coupledBench(k: number, cells: number): number {
+  const l = new Float64Array(k * k);
+  const c = new Float64Array(k * k);
+  for (let i = 0; i < k; i++)
+    for (let j = 0; j < k; j++) {
+      l[i * k + j] = i === j ? 300e-9 : 45e-9;
+      c[i * k + j] = i === j ? 120e-12 : -12e-12;
+    }
+  const line = { k, l, c };
+  const dt = coupledFastestDelay(line, 1) / cells;
+  const s = buildCoupledSection(line, 1, cells, dt);
+  s.v[k * (cells >> 1)] = 1;
+  const ends = new Float64Array(2 * k);
+  const steps = Math.max(200, Math.round(2e8 / (cells * k)));
+  for (let n = 0; n < 2000; n++) advanceCoupledSection(s, ends); // warm up the JIT
+  const t0 = process.hrtime.bigint();
+  for (let n = 0; n < steps; n++) advanceCoupledSection(s, ends);
+  return Number(process.hrtime.bigint() - t0) / (steps * cells * k);
+}
+
 async function scenarioBench(dir: string): Promise<void> {
   const files = readdirSync(dir).filter((f) => /\.(json|ya?ml)$/.test(f)).sort();
   for (const f of files) {
@@ -60,6 +82,11 @@ const lossless = kernelBench(2000).nsPerCellStep;
 const lossy = kernelBench(2000, true).nsPerCellStep;
 console.log('line kernel with 4 conductor + 4 dielectric states per cell (target ≤ 3× the lossless cost):');
 console.log(`  N =   2000: ${lossy.toFixed(2).padStart(6)} ns per cell-step, ${(lossy / lossless).toFixed(2)}× lossless`);
+console.log('coupled-section kernel, 2 and 3 conductors, lossless (sim/coupled; not yet in runs):');
+for (const k of [2, 3]) {
+  const r = coupledBench(k, 2000);
+  console.log(`  k = ${k}, N =   2000: ${r.toFixed(2).padStart(6)} ns per conductor-cell-step, ${(r / lossless).toFixed(2)}× the single-line figure`);
+}
 console.log('scenarios (whole run, including set-up):');
 await scenarioBench(join(process.cwd(), 'scenarios'));
 
