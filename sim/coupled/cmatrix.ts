@@ -319,8 +319,8 @@ export function ceig(a: CMatrix, k: number): { values: CMatrix; vectors: CMatrix
       }
       let dr = t.re[i * k + i] - lr;
       let di = t.im[i * k + i] - li;
-      if (Math.hypot(dr, di) < small) {
-        if (Math.hypot(sr, si) < small) continue; // degenerate eigenspace: this component stays 0
+      if (Math.hypot(dr, di) <= small) {
+        if (Math.hypot(sr, si) <= small) continue; // degenerate eigenspace: this component stays 0
         dr = small; // nearly defective: perturb (LAPACK's xTREVC does the same)
         di = 0;
       }

@@ -111,6 +111,22 @@ describe('modal 2k-port admittance', () => {
     }
   });
 
+  // At s = 0 with G = 0 the section is a resistor network: Z′Y′ = 0, γ·coth γℓ → 1/ℓ and γ·csch γℓ → 1/ℓ,
+  // so Y_s = (R·ℓ)⁻¹ = −Y_m (Ohm's law for the matrix of series resistances R·ℓ).
+  it('at DC a resistive section is (R·ℓ)⁻¹ between its ends', () => {
+    const r = fromRows([[9, 1, 0.5], [1, 7, 1], [0.5, 1, 11]]);
+    const line: CoupledLine = { k: 3, l: identity(3).map((x) => x * 3e-7), c: identity(3).map((x) => x * 1e-10), r };
+    const length = 0.4;
+    const { z, y } = coupledPerLength(line, { re: 0, im: 0 });
+    const yy = coupledAdmittance(z, y, 3, length);
+    const want = solveMatrix(r.map((x) => x * length), identity(3), 3, 3);
+    for (let i = 0; i < 3; i++)
+      for (let j = 0; j < 3; j++) {
+        expectClose(entry(yy, 6, i, j), { re: want[i * 3 + j], im: 0 }, 1e-12, 1);
+        expectClose(entry(yy, 6, i + 3, j), { re: -want[i * 3 + j], im: 0 }, 1e-12, 1);
+      }
+  });
+
   it('the eigen-solver reproduces a known non-normal matrix', () => {
     // A = V·diag(1 + 2j, −3, 0.5j)·V⁻¹ with a non-unitary V: the eigenvalues come back, A·x = λ·x for each vector.
     const k = 3;
