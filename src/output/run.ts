@@ -90,6 +90,10 @@ export interface RunReport {
   frameFiles: string[];
   /** Views that were asked for but that this scenario cannot have, and why. */
   skippedViews: { view: ViewName; reason: string }[];
+  /** Views drawn without part of their content (the bounce view without a lattice), and why. */
+  partialViews: { view: ViewName; reason: string }[];
+  /** Why the frames asked for were not drawn (null when they were, or none were asked for). */
+  framesSkipped: string | null;
   /** Wall-clock seconds spent in the simulation proper, and in the whole call. */
   wallTime: { simulate: number; total: number };
 }
@@ -238,8 +242,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const scenario = await readScenarioFile(file);
   const { net } = scenario;
   const { planViews } = await import('../views/select.js');
-  const frames = options.frames ?? 0;
-  const plan = planViews(net, options.views ?? ['waveforms'], frames);
+  const plan = planViews(net, options.views ?? ['waveforms'], options.frames ?? 0);
+  const frames = plan.framesSkipped === null ? (options.frames ?? 0) : 0;
 
   options.onPhase?.('simulate');
   const t1 = performance.now();
@@ -314,6 +318,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     files: written.filter((f) => !frameSet.has(f)),
     frameFiles: written.filter((f) => frameSet.has(f)),
     skippedViews: plan.skipped,
+    partialViews: plan.partial,
+    framesSkipped: plan.framesSkipped,
     wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 },
   };
 }

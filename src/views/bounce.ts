@@ -1,14 +1,16 @@
 // The bounce (lattice) view: the lattice diagram computed from the scenario (distance across, time
 // running downward), flanked by the simulated voltage at the driver pin and at the receiver on the
 // same time axis, with the lattice's predicted levels dashed over them so the plateaus can be matched
-// by eye. Nets the lattice method cannot describe (reactive or lossy parts, signals other than a
-// step) get a message panel saying why, and only the simulated waveforms.
+// by eye. A net the lattice method does not describe exactly (reactive or lossy parts, a pulse, clock
+// or bits) gets the lattice of an idealised net (idealise.ts), with a note on the picture saying what
+// was idealised; where that would mislead, a message panel saying why, and only the simulated waveforms.
 import type { Net, ProbeSpec } from '../../sim/model.js';
 import { probeTrace, type SimResult } from '../../sim/result.js';
 import { buildFrame, drawFrameBackground, drawFrameForeground, fitText, TYPE, type Frame, type FrameSpec } from '../render/frame.js';
 import { OKABE_ITO, THEME, type TraceStyle } from '../render/palette.js';
 import { encodePng, Surface, type Rect } from '../render/surface.js';
 import { formatSi } from '../render/ticks.js';
+import { idealiseForLattice, type Idealisation } from './idealise.js';
 import { latticeDiagram, type LatticeDiagram, type LatticeOptions, type LatticeResult } from './lattice.js';
 import {
   drawMessagePanel,
@@ -125,9 +127,11 @@ export function bounceLabels(d: LatticeDiagram): BounceLabels {
       ? `Receiver end: open, Γ = +1.`
       : `Receiver end: Γ = (${ohms(ld.zFromLeft!)} − ${ohms(zL)}) / (${ohms(ld.zFromLeft!)} + ${ohms(zL)}) = ${signed(ld.gammaFromLeft!)}.`,
   );
+  const many = d.edges.length > 1;
+  if (many) formulas.push(`Each of the ${d.edges.length} edges launches its own wave, V⁺ in proportion to its step; the waves add up.`);
   formulas.push(
-    `DC levels (lines as wires): before the step ${volts(d.dc.before.pin)} at the pin and ${volts(d.dc.before.receiver)} at the receiver; ` +
-      `after it ${volts(d.dc.after.pin)} and ${volts(d.dc.after.receiver)}.` +
+    `DC levels (lines as wires): before the ${many ? 'first edge' : 'step'} ${volts(d.dc.before.pin)} at the pin and ${volts(d.dc.before.receiver)} at the receiver; ` +
+      `after ${many ? 'the last' : 'it'} ${volts(d.dc.after.pin)} and ${volts(d.dc.after.receiver)}.` +
       (d.truncated ? ` Waves followed until ${formatSi(d.horizon, 's', 3)} (wave or bounce limit).` : ''),
   );
   return { waves, boundaries, formulas };
@@ -144,6 +148,8 @@ export interface BounceInput {
 
 export interface BounceLayout {
   diagram: LatticeResult;
+  /** What was idealised (notes), or why no lattice is drawn (refusals). */
+  idealisation: Idealisation;
   /** Frames of the three panels (the lattice is absent when it is not supported). */
   driver: Frame;
   lattice?: Frame;
@@ -152,28 +158,55 @@ export interface BounceLayout {
   message?: Rect;
 }
 
+/**
+ * The lattice the bounce view draws for `net` over `duration`: of the net itself when the lattice
+ * describes it exactly, else of its idealisation (idealise.ts), or the reasons it is not drawn.
+ */
+export function bounceLattice(net: Net, duration: number, options: LatticeOptions = {}): { diagram: LatticeResult; idealisation: Idealisation } {
+  const idealisation = idealiseForLattice(net, duration);
+  if (idealisation.refusals.length) return { diagram: { supported: false, reasons: idealisation.refusals }, idealisation };
+  return { diagram: latticeDiagram(idealisation.net, { horizon: idealisation.horizon, edges: idealisation.edges, ...options }), idealisation };
+}
+
 /** Draw the bounce view into `area` of `s`. */
 export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLayout {
   const { net, result } = input;
   const duration = result.discretization.duration;
-  const diagram = latticeDiagram(net, { horizon: duration, ...input.lattice });
+  const { diagram, idealisation } = bounceLattice(net, duration, input.lattice);
+  const idealised = diagram.supported && idealisation.notes.length > 0;
   const labels = diagram.supported ? bounceLabels(diagram) : undefined;
   const pad = 16;
   const inner: Rect = { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h - 2 * pad };
-  const subtitle = diagram.supported
-    ? 'Lattice (bounce) diagram computed from the scenario, beside the simulated voltage at both ends on the same time axis (time runs downward). ' +
-      'Dashed: the lattice’s predicted levels; solid: the simulation.'
-    : 'The lattice method does not apply to this net (see the panel). The simulated voltage at both ends is shown; time runs downward.';
+  const subtitle = !diagram.supported
+    ? 'No lattice for this net (see the panel): the simulated voltage at both ends is shown; time runs downward.'
+    : idealised
+      ? 'Lattice (bounce) diagram of an IDEALISED net (what was idealised is listed below), beside the simulated voltage of the real net at both ends on the same time axis (time runs downward). ' +
+        'Dashed: the idealised lattice’s levels; solid: the simulation of the net as it is.'
+      : 'Lattice (bounce) diagram computed from the scenario, beside the simulated voltage at both ends on the same time axis (time runs downward). ' +
+        'Dashed: the lattice’s predicted levels; solid: the simulation.';
   const titleH = drawTitleBlock(s, inner, input.title, subtitle);
 
-  // Bottom block: legend and formulas.
+  // Bottom block: legend, the idealisation note and the formulas.
   const legendH = lineStep(s, 13, 8);
   const formulaLines = labels ? labels.formulas.flatMap((f) => wrapText(s, f, 13, inner.w)) : [];
+  const idealLines = idealised
+    ? [
+        ...wrapText(s, 'Idealised net — the lattice is exact for it, not for the scenario:', 13, inner.w - 24, true),
+        ...idealisation.notes.flatMap((n) => wrapText(s, `• ${n}`, 13, inner.w - 24)),
+        ...wrapText(s, 'The solid traces beside the lattice are the simulation of the real net.', 13, inner.w - 24, true),
+      ]
+    : [];
   const noteLines = diagram.supported
     ? []
-    : wrapText(s, 'A lattice diagram needs a step source, lossless line segments, and resistive ends and junctions.', 13, inner.w);
+    : wrapText(
+        s,
+        'The lattice is drawn for an idealised net (the signal’s edges as ideal steps, lossless lines, reactive parts as opens or shorts) unless the idealisation would mislead, as here.',
+        13,
+        inner.w,
+      );
   const textStep = lineStep(s, 13, 3);
-  const bottomH = legendH + (formulaLines.length + noteLines.length) * textStep + 8;
+  const idealH = idealLines.length ? idealLines.length * textStep + 16 : 0;
+  const bottomH = legendH + (formulaLines.length + noteLines.length) * textStep + idealH + 8;
   const body: Rect = { x: area.x, y: inner.y + titleH, w: area.w, h: inner.y + inner.h - bottomH - (inner.y + titleH) };
 
   // side panels wide enough for three voltage ticks (the frame asks for one per 90 px)
@@ -218,7 +251,13 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
     };
     const f = buildFrame(s, centre, frameSpec);
     drawFrameBackground(s, f, { grid: false, zeroLine: false });
-    message = drawMessagePanel(s, f.plot, 'No bounce diagram for this net', diagram.reasons, 'The simulated waveforms at both ends are still shown beside this panel.');
+    message = drawMessagePanel(
+      s,
+      f.plot,
+      'No lattice for this net',
+      diagram.reasons,
+      'A lattice of an idealised net would mislead here. The simulated waveforms at both ends are still shown beside this panel.',
+    );
     drawFrameForeground(s, f, frameSpec);
   }
 
@@ -236,11 +275,23 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
     x += 38 + r.w + 26;
   }
   y += legendH;
+  if (idealLines.length) {
+    // a tinted box, so the note cannot be mistaken for the formulas
+    s.fillRect(inner.x, y, inner.w, idealH - 6, '#fff8e6');
+    s.strokeRect(inner.x, y, inner.w, idealH - 6, '#c98a00', 2);
+    let yi = y + 6;
+    idealLines.forEach((l, i) => {
+      const bold = i === 0 || i === idealLines.length - 1;
+      s.text(l, inner.x + 12, yi, { size: 13, baseline: 'top', bold, color: THEME.text });
+      yi += textStep;
+    });
+    y += idealH;
+  }
   for (const l of [...formulaLines, ...noteLines]) {
     s.text(l, inner.x, y, { size: 13, baseline: 'top', color: THEME.text });
     y += textStep;
   }
-  return { diagram, driver, lattice, receiver, message };
+  return { diagram, idealisation, driver, lattice, receiver, message };
 }
 
 function routeLength(net: Net): number {

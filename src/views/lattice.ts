@@ -18,7 +18,7 @@ import type { Net, Part, RouteItem } from '../../sim/model.js';
 import { rampDuration } from '../../sim/signals.js';
 
 export interface LatticeOptions {
-  /** Stop following a wave after this many reflections and transmissions (default 16). */
+  /** Stop following a wave after this many reflections (default 32; passing a junction is not counted). */
   maxBounces?: number;
   /** Drop waves smaller than this fraction of |V⁺| (default 1e-3). */
   floor?: number;
@@ -26,6 +26,18 @@ export interface LatticeOptions {
   horizon?: number;
   /** At most this many waves (default 4000). */
   maxWaves?: number;
+  /**
+   * The source's edges as ideal steps: the time of each one's 50 % point (s) and its change of level
+   * (V), in time order; the first must be the net's step signal. Default: that step alone. By
+   * linearity the waves of several edges add up (superposition), each launched like the first.
+   */
+  edges?: readonly SourceEdge[];
+}
+
+/** One edge of the source as an ideal step: its 50 % time and its change of level. */
+export interface SourceEdge {
+  time: number;
+  step: number;
 }
 
 export interface LatticeSegment {
@@ -73,7 +85,7 @@ export interface LatticeWave {
   x0: number;
   x1: number;
   amplitude: number;
-  /** Reflections and transmissions since the launch (0 for the launched wave). */
+  /** Reflections since the launch (0 for the launched wave; passing a junction does not count). */
   bounces: number;
 }
 
@@ -116,7 +128,9 @@ export interface LatticeDiagram {
   };
   waves: LatticeWave[];
   arrivals: LatticeArrival[];
-  /** DC levels with the source before and after the step: driver pin, each segment, receiver. */
+  /** The source's edges followed (one for a step signal). */
+  edges: readonly SourceEdge[];
+  /** DC levels with the source before the first edge and after the last one: driver pin, each segment, receiver. */
   dc: { before: DcLevels; after: DcLevels };
   /** Voltage at the driver pin and at the receiver, as steps at the arrival times (ideal step). */
   plateaus: { driver: Plateau[]; receiver: Plateau[] };
@@ -446,9 +460,12 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
 
   const t50 = sig.start + rampDuration(sig.rise) / 2;
   const amplitude = (th.v * segments[0].z0) / (th.r + segments[0].z0);
+  // every edge launches V⁺ in proportion to its step (the Thevenin divider is linear in the source)
+  const edges: readonly SourceEdge[] = options.edges ?? [{ time: t50, step: dv }];
+  const launchPerVolt = dv === 0 ? 0 : amplitude / dv;
   const horizon = options.horizon ?? net.run.duration ?? defaultDuration(net);
-  const floor = Math.abs(amplitude) * (options.floor ?? 1e-3);
-  const maxBounces = options.maxBounces ?? 16;
+  const floor = Math.min(...edges.map((e) => Math.abs(e.step * launchPerVolt))) * (options.floor ?? 1e-3);
+  const maxBounces = options.maxBounces ?? 32;
   const maxWaves = options.maxWaves ?? 4000;
 
   // Follow the waves in order of launch time. Waves launched on the same segment, in the same
@@ -478,7 +495,7 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
     pending.set(k, w);
     heap.push(w);
   };
-  launchWave(0, 1, t50, amplitude, 0);
+  for (const e of edges) if (e.time <= horizon) launchWave(0, 1, e.time, e.step * launchPerVolt, 0);
 
   const waves: LatticeWave[] = [];
   const arrivals: LatticeArrival[] = [];
@@ -506,32 +523,34 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
       const trans = bd.kind === 'junction' ? a * bd.tauLeftToRight! : 0;
       arrivals.push({ time: w.t1, boundary: b, position: bd.position, from: 1, incident: a, reflected: refl, transmitted: trans });
       if (refl !== 0) launchWave(w.segment, -1, w.t1, refl, w.bounces + 1);
-      if (trans !== 0) launchWave(w.segment + 1, 1, w.t1, trans, w.bounces + 1);
+      if (trans !== 0) launchWave(w.segment + 1, 1, w.t1, trans, w.bounces);
     } else {
       const refl = a * bd.gammaFromRight!;
       const trans = bd.kind === 'junction' ? a * bd.tauRightToLeft! : 0;
       arrivals.push({ time: w.t1, boundary: b, position: bd.position, from: -1, incident: a, reflected: refl, transmitted: trans });
       if (refl !== 0) launchWave(w.segment, 1, w.t1, refl, w.bounces + 1);
-      if (trans !== 0) launchWave(w.segment - 1, -1, w.t1, trans, w.bounces + 1);
+      if (trans !== 0) launchWave(w.segment - 1, -1, w.t1, trans, w.bounces);
     }
   }
   arrivals.sort((p, q) => p.time - q.time || p.boundary - q.boundary);
 
-  const dc = { before: dcLevels(net, sig.from, net.route), after: dcLevels(net, sig.to, net.route) };
+  const finalLevel = sig.from + edges.filter((e) => e.time <= horizon).reduce((a, e) => a + e.step, 0);
+  const dc = { before: dcLevels(net, sig.from, net.route), after: dcLevels(net, finalLevel, net.route) };
 
   // End voltages: line-side voltage from the waves, mapped through the end networks.
   const pin = pinCoefficients(rs, srcElems);
   const rxTransfer = lookRight(loadElems, partsResistance(net.receiver)).transfer;
   const gS = boundaries[0].gammaFromRight!;
   const gL = boundaries[n].gammaFromLeft!;
-  const driverSteps: [number, number][] = [[t50, amplitude]];
-  const receiverSteps: [number, number][] = [];
+  // Steps of (line-side voltage, source voltage) at each end; the source's own steps move the pin.
+  const driverSteps: Step[] = edges.filter((e) => e.time <= complete).map((e) => [e.time, e.step * launchPerVolt, e.step]);
+  const receiverSteps: Step[] = [];
   for (const ar of arrivals) {
-    if (ar.boundary === 0) driverSteps.push([ar.time, ar.incident * (1 + gS)]);
-    if (ar.boundary === n) receiverSteps.push([ar.time, ar.incident * (1 + gL)]);
+    if (ar.boundary === 0) driverSteps.push([ar.time, ar.incident * (1 + gS), 0]);
+    if (ar.boundary === n) receiverSteps.push([ar.time, ar.incident * (1 + gL), 0]);
   }
   const plateaus = {
-    driver: toPlateaus(driverSteps, complete, (line) => dc.before.pin + pin.a * dv + pin.b * line, dc.before.pin),
+    driver: toPlateaus(driverSteps, complete, (line, src) => dc.before.pin + pin.a * src + pin.b * line, dc.before.pin),
     receiver: toPlateaus(receiverSteps, complete, (line) => dc.before.receiver + rxTransfer * line, dc.before.receiver),
   };
 
@@ -550,6 +569,7 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
     },
     waves,
     arrivals,
+    edges: edges.filter((e) => e.time <= horizon),
     dc,
     plateaus,
     horizon: complete,
@@ -557,23 +577,32 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
   };
 }
 
+/** A step at an end: time, increment of the line-side voltage, increment of the source voltage. */
+type Step = [number, number, number];
+
 /**
- * Steps (time, increment of the line-side voltage) → plateaus of `level(line voltage)`, starting
- * with the level before the step (`initial`) from t = 0. Steps at the same time are merged.
+ * Steps → plateaus of `level(line voltage, source voltage change)`, starting with the level before
+ * the first step (`initial`) from t = 0. Steps at the same time are merged.
  */
-function toPlateaus(steps: readonly [number, number][], horizon: number, level: (line: number) => number, initial: number): Plateau[] {
+function toPlateaus(steps: readonly Step[], horizon: number, level: (line: number, src: number) => number, initial: number): Plateau[] {
   const out: Plateau[] = [];
   let t = 0;
   let line = 0;
+  let src = 0;
   let value = initial;
   const sorted = [...steps].filter((s) => s[0] <= horizon).sort((p, q) => p[0] - q[0]);
   for (let i = 0; i < sorted.length; ) {
     const ti = sorted[i][0];
     let inc = 0;
-    while (i < sorted.length && Math.abs(sorted[i][0] - ti) <= 1e-12 * Math.max(1e-9, Math.abs(ti))) inc += sorted[i++][1];
+    let srcInc = 0;
+    while (i < sorted.length && Math.abs(sorted[i][0] - ti) <= 1e-12 * Math.max(1e-9, Math.abs(ti))) {
+      inc += sorted[i][1];
+      srcInc += sorted[i++][2];
+    }
     if (ti > t) out.push({ from: t, to: ti, value });
     line += inc;
-    value = level(line);
+    src += srcInc;
+    value = level(line, src);
     t = ti;
   }
   if (horizon > t) out.push({ from: t, to: horizon, value });

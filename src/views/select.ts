@@ -3,8 +3,10 @@
 //
 // The TDR profile is not a view of a run: it drives the route from a matched step source in place of the
 // driver, which is a different simulation, so it is its own command (`ladderwave tdr`).
+import { defaultDuration } from '../../sim/discretize.js';
 import type { Net } from '../../sim/model.js';
 import { eyeUnavailableReason } from './eye.js';
+import { idealiseForLattice } from './idealise.js';
 
 export const VIEW_NAMES = ['waveforms', 'map', 'bounce', 'eye'] as const;
 export type ViewName = (typeof VIEW_NAMES)[number];
@@ -83,16 +85,38 @@ export interface ViewPlan {
   views: ViewName[];
   /** Requested views this scenario cannot have, with the reason. */
   skipped: { view: ViewName; reason: string }[];
+  /** Views drawn without part of what they usually show, with the reason (the bounce view without its lattice). */
+  partial: { view: ViewName; reason: string }[];
+  /** Why `--frames` cannot be drawn for this net (null when it can, or none were asked for). */
+  framesSkipped: string | null;
   /** The simulation must record the voltage along the route. */
   routeMap: boolean;
+}
+
+/** Why the voltage along the route cannot be drawn (map, frames), or null. */
+export function routeMapUnavailableReason(net: Net): string | null {
+  const length = net.route.reduce((a, it) => a + (it.kind === 'line' ? it.length : 0), 0);
+  return length > 0 ? null : 'the route has no line segment, so there is no distance along it to draw';
 }
 
 /** The views a scenario gets out of the requested ones, and what the simulation must record for them. */
 export function planViews(net: Net, requested: readonly ViewName[], frames = 0): ViewPlan {
   const views: ViewName[] = [];
   const skipped: ViewPlan['skipped'] = [];
+  const partial: ViewPlan['partial'] = [];
   for (const v of VIEW_NAMES) {
     if (!requested.includes(v)) continue;
+    if (v === 'map') {
+      const why = routeMapUnavailableReason(net);
+      if (why) {
+        skipped.push({ view: v, reason: why });
+        continue;
+      }
+    }
+    if (v === 'bounce') {
+      const refusals = idealiseForLattice(net, net.run.duration ?? defaultDuration(net)).refusals;
+      if (refusals.length) partial.push({ view: v, reason: `no lattice drawn (only the simulated waveforms at both ends): ${refusals.join('; ')}` });
+    }
     if (v === 'eye') {
       const why = eyeUnavailableReason(net.driver.signal);
       if (why) {
@@ -106,5 +130,6 @@ export function planViews(net: Net, requested: readonly ViewName[], frames = 0):
     }
     views.push(v);
   }
-  return { views, skipped, routeMap: views.includes('map') || frames > 0 };
+  const framesSkipped = frames > 0 ? routeMapUnavailableReason(net) : null;
+  return { views, skipped, partial, framesSkipped, routeMap: views.includes('map') || (frames > 0 && framesSkipped === null) };
 }

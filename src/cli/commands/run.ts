@@ -92,6 +92,8 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
       if (!opts.quiet) {
         for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
         for (const s of report.skippedViews) io.err(`warning: ${files[i]}: no ${s.view} view: ${s.reason}\n`);
+        for (const s of report.partialViews) io.err(`warning: ${files[i]}: ${s.view} view: ${s.reason}\n`);
+        if (report.framesSkipped) io.err(`warning: ${files[i]}: no frames: ${report.framesSkipped}\n`);
         const eye = report.summary.eye as EyeMeasurement | undefined;
         const thin = eye && eye.windows > 0 ? eyeCoverageNote(eye) : null;
         if (thin) io.err(`warning: ${files[i]}: ${thin}\n`);

@@ -107,6 +107,25 @@ describe('ladderwave run --views/--frames/--report', () => {
     expect(readdirSync(join(out, 'frames'))).toEqual(['frame-0001.png', 'frame-0002.png']);
   });
 
+  it('says in the terminal which views and frames a net cannot have (no line: no map, no frames, no lattice)', async () => {
+    const d = dir();
+    const file = writeScenario(d, 'jig.json', {
+      title: 'Bench jig: a resistor divider without a line',
+      driver: { signal: { kind: 'step', from: '0V', to: '1V', start: '1ns', rise: '1ns' }, resistance: '50ohm' },
+      route: [{ name: 'r1', series: { r: '100ohm' } }],
+      receiver: { parts: [{ r: '100ohm' }] },
+      probes: [{ name: 'out', at: 'receiver' }],
+      run: { duration: '10ns' },
+    });
+    const out = join(d, 'o');
+    const io = collect();
+    expect(await runCli(['run', file, '--out', out, '--views', 'all', '--frames', '2'], { io })).toBe(0);
+    expect(io.stderr).toMatch(/no map view: the route has no line segment/);
+    expect(io.stderr).toMatch(/no frames: the route has no line segment/);
+    expect(io.stderr).toMatch(/bounce view: no lattice drawn .*no line segment/);
+    expect(readdirSync(out).sort()).toEqual(['bounce.png', 'probes.csv', 'summary.json', 'waveforms.png']);
+  });
+
   it('draws waveforms and map by default', async () => {
     const d = dir();
     const file = writeScenario(d, 'small.json', SMALL);

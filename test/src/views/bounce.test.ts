@@ -110,12 +110,37 @@ describe('drawing', () => {
     expect(hit(...(at(wb, 0.25) as [number, number]), hexToRgb(BOUNCE_STYLE.backward.color))).toBe(true);
   });
 
-  it('shows a message panel instead of a lattice for a net with reactive and lossy parts', async () => {
+  it('draws the lattice of an idealised net for a net with small reactive and lossy parts, with the note on the picture', async () => {
+    // 50 Ω, 0.6 ns one way (round trip 1.2 ns); the 1 pF via sees 25 Ω: τ = 25 ps, a fifth of the round trip or less
     const n = withEndProbes(
       net({
         signal: stepSignal(1, 200e-12, 1e-9),
         rs: 20,
-        route: [{ kind: 'line', name: 'lossy', line: lineOf(50, 6e-9, 3, 0), length: 0.1 }, { kind: 'shunt', name: 'via', parts: [part({ c: 1e-12 })] }],
+        route: [{ kind: 'line', name: 'lossy', line: lineOf(50, 6e-9, 3, 0), length: 0.1 }, { kind: 'shunt', name: 'via', parts: [part({ c: 1e-12 })] }, { kind: 'line', name: 'tail', line: lineOf(50, 6e-9), length: 0.05 }],
+        duration: 8e-9,
+      }),
+    );
+    const s = new Surface(1500, 950);
+    const lay = drawBounce(s, { x: 0, y: 0, w: 1500, h: 950 }, { title: 'idealised', net: n, result: simulate(n) });
+    expect(lay.diagram.supported).toBe(true);
+    expect(lay.lattice).toBeDefined();
+    expect(lay.idealisation.notes.join('\n')).toMatch(/lossless[\s\S]*shunt 'via' \(C 1 pF; τ ≈ 25 ps/);
+    // the note's tinted box (#fff8e6) spans the width below the panels
+    const img = PNG.sync.read(encodePng(s));
+    const below = lay.driver.plot.y + lay.driver.plot.h + 60;
+    let tinted = 0;
+    for (let y = below; y < 950; y++) if (near(px(img, 750, y), hexToRgb('#fff8e6'))) tinted++;
+    expect(tinted).toBeGreaterThan(40);
+  });
+
+  it('shows a message panel instead of a lattice where the idealisation would mislead (τ of a part ≈ the round trip)', async () => {
+    // 50 pF at the far end of a 50 Ω line with a 1 ns round trip: τ = Z0·C = 2.5 ns
+    const n = withEndProbes(
+      net({
+        signal: stepSignal(1, 200e-12, 1e-9),
+        rs: 20,
+        route: [{ kind: 'line', name: 'trace', line: lineOf(50, 5e-9), length: 0.1 }],
+        receiver: [part({ c: 50e-12 })],
         duration: 8e-9,
       }),
     );
@@ -124,6 +149,7 @@ describe('drawing', () => {
     expect(lay.lattice).toBeUndefined();
     expect(lay.message).toBeDefined();
     expect(lay.diagram.supported).toBe(false);
+    if (!lay.diagram.supported) expect(lay.diagram.reasons.join()).toMatch(/the receiver \(C 50 pF; τ ≈ 2\.5 ns/);
     // the panel sits between the two waveform panels
     expect(lay.message!.x).toBeGreaterThan(lay.driver.plot.x + lay.driver.plot.w);
     expect(lay.message!.x + lay.message!.w).toBeLessThan(lay.receiver.plot.x);
