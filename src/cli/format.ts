@@ -1,5 +1,6 @@
 // Human-readable text for the terminal: aligned tables and the per-scenario run summary.
 import type { RunReport } from '../output/run.js';
+import type { CheckResult } from '../measure/index.js';
 import { formatSI } from '../units.js';
 import { alignColumns as table } from '../text/columns.js';
 
@@ -11,6 +12,14 @@ function section(label: string, lines: string[], labelWidth: number): string[] {
 }
 
 const si = (value: number, unit: string) => formatSI(value, unit, 4);
+
+/** The checks' verdict ("2 of 3 FAIL", "all 3 PASS") and each failing check, probe, metric and why; none: nothing. */
+export function checkLines(checks: readonly CheckResult[]): string[] {
+  if (checks.length === 0) return ['none in the scenario'];
+  const failed = checks.filter((c) => !c.pass);
+  if (failed.length === 0) return [`all ${checks.length} PASS`];
+  return [`${failed.length} of ${checks.length} FAIL`, ...failed.map((c) => `FAIL ${c.probe} ${c.metric} ${c.limit}: ${c.message}`)];
+}
 
 /** The summary printed after a scenario has run (without --quiet). */
 export function formatRunReport(report: RunReport): string {
@@ -34,14 +43,17 @@ export function formatRunReport(report: RunReport): string {
       lw,
     ),
   );
+  // "50 % at": the first crossing of the source's 50 % level through the probe's DC divider (blank when
+  // the probe does not follow the source, or never crosses in the run).
   const probeRows = Object.entries(report.summary.probes).map(([name, s]) => [
     name,
     si(s.min, 'V'),
     si(s.max, 'V'),
     si(s.final, 'V'),
-    s.crossing50.time === null ? '—' : si(s.crossing50.time, 's'),
+    s.crossing50.time === null ? '' : si(s.crossing50.time, 's'),
   ]);
   lines.push(...section('probes', table([['', 'min', 'max', 'final', '50 % at'], ...probeRows], ['l', 'r', 'r', 'r', 'r']), lw));
+  lines.push(...section('checks', checkLines(report.checks), lw));
   lines.push(...section('wrote', report.files, lw));
   return lines.join('\n') + '\n';
 }

@@ -2,7 +2,7 @@
 // (max, min, or both); the result says what was measured, against what, and why it passed or failed.
 // A check that cannot be evaluated (unknown probe, no edge, a quantity that could not be measured)
 // FAILS with the reason — it never throws and never passes by default.
-import { bandVolts, type BandSpec, type EdgeDirection, type EdgeMeasurement } from './edges.js';
+import { bandVolts, type BandSpec, type EdgeDirection, type EdgeMeasurement } from './edge-types.js';
 import { formatPercent, formatSI } from './format.js';
 import type { CheckLimit, LimitUnit } from './limits.js';
 import { measureProbe, type MeasureOptions, type ProbeMeasurements } from './summary.js';
@@ -13,6 +13,7 @@ export const METRIC_NAMES = [
   'undershoot',
   'preshoot',
   'ringback',
+  'ringbackMargin',
   'settling',
   'delay',
   'delayThreshold',
@@ -25,6 +26,8 @@ export const METRIC_NAMES = [
   'final',
   'noiseMarginHigh',
   'noiseMarginLow',
+  'belowLowRail',
+  'aboveHighRail',
   'crossings',
   'monotonic',
   'edges',
@@ -60,7 +63,7 @@ export interface CheckResult {
   unit: LimitUnit | null;
   pass: boolean;
   message: string;
-  /** Edge (index) the deciding value came from, when it came from one. */
+  /** Number (from 1) of the edge the deciding value came from, when it came from one. */
   edge: number | null;
   /** Instant (s) of that edge's 50 % crossing (or of the source edge, for delays). */
   time: number | null;
@@ -78,7 +81,8 @@ export const METRICS: Readonly<Record<MetricName, MetricDef>> = {
   overshoot: { units: ['V', '%'], kind: 'edge', describe: 'post-transition overshoot beyond the final state level, worst over edges' },
   undershoot: { units: ['V', '%'], kind: 'edge', describe: 'post-transition undershoot back past the final state level, worst over edges' },
   preshoot: { units: ['V', '%'], kind: 'edge', describe: 'pre-transition preshoot beyond the initial state level, worst over edges' },
-  ringback: { units: ['V', '%'], kind: 'edge', describe: 'largest return toward the threshold after first crossing it, worst over edges' },
+  ringback: { units: ['V', '%'], kind: 'edge', describe: 'return below the settled level after first reaching the far reference level (90 % rising, 10 % falling), worst over edges' },
+  ringbackMargin: { units: ['V'], kind: 'edge', describe: 'after first crossing vih (rising) / vil (falling), the closest approach back toward it, as a margin; negative inside the undefined band' },
   settling: { units: ['s'], kind: 'edge', describe: 'time from the 50 % instant until the waveform stays within ±band of the final level' },
   delay: { units: ['s'], kind: 'delay', describe: 'source 50 % instant to probe 50 % instant, per matched edge' },
   delayThreshold: {
@@ -95,6 +99,8 @@ export const METRICS: Readonly<Record<MetricName, MetricDef>> = {
   final: { units: ['V'], kind: 'probe', describe: 'last sample value' },
   noiseMarginHigh: { units: ['V'], kind: 'probe', describe: 'lowest level while high minus vih, worst over the record' },
   noiseMarginLow: { units: ['V'], kind: 'probe', describe: 'vil minus highest level while low, worst over the record' },
+  belowLowRail: { units: ['V'], kind: 'probe', describe: "how far the probe goes below the driver's low rail (below ground for a 0 V low level)" },
+  aboveHighRail: { units: ['V'], kind: 'probe', describe: "how far the probe goes above the driver's high rail (its supply)" },
   crossings: { units: ['count'], kind: 'edge', describe: 'threshold crossings per edge (vih/vil with thresholds, else 50 %), worst over edges' },
   monotonic: { units: ['V', '%'], kind: 'monotonic', describe: 'every edge monotonic between 10 % and 90 % (optional max reversal)' },
   edges: { units: ['count'], kind: 'count', describe: 'number of complete edges of the selected direction' },
@@ -200,13 +206,17 @@ interface Item {
   lowValue: number | null;
   reason?: string;
   lowReason?: string;
+  /** Number of the edge the value came from, when it came from one. */
   edge: number | null;
   time: number | null;
   label: string;
 }
 
+/** The items a check compares with its limit, or a failure message when there are none to compare. */
+type Gathered = { items: Item[]; note: string } | { failure: string };
+
 function edgeLabel(e: EdgeMeasurement): string {
-  return `${e.direction} edge ${e.index} at ${formatSI(e.t50, 's')}`;
+  return `${e.direction} edge ${e.number} at ${formatSI(e.t50, 's')}`;
 }
 
 /** Evaluate checks against measurements already made (e.g. from summary.json). */
@@ -214,159 +224,164 @@ export function evaluateChecks(checks: readonly CheckSpec[], probes: Readonly<Re
   return checks.map((c) => evaluateOne(c, probes));
 }
 
-function evaluateOne(spec: CheckSpec, probes: Readonly<Record<string, ProbeMeasurements>>): CheckResult {
-  const limit = describeLimit(spec);
-  const unit: LimitUnit | null = (spec.max ?? spec.min)?.unit ?? (spec.metric === 'monotonic' ? 'V' : null);
-  const fail = (message: string, extra: Partial<CheckResult> = {}): CheckResult => ({
-    probe: spec.probe,
-    metric: spec.metric,
-    limit,
-    measured: null,
-    measuredText: 'n/a',
-    unit,
-    pass: false,
-    message,
-    edge: null,
-    time: null,
-    ...extra,
-  });
-  const problems = validateCheck(spec);
-  if (problems.length > 0) return fail(`invalid check: ${problems.join('; ')}`);
-  const metric = spec.metric as MetricName;
-  const def = METRICS[metric];
-  const m = Object.prototype.hasOwnProperty.call(probes, spec.probe) ? probes[spec.probe] : undefined;
-  if (!m) return fail(`no probe named "${spec.probe}" (probes: ${Object.keys(probes).join(', ') || 'none'})`);
-  const A = m.levels?.amplitude ?? null;
+type ProbeMetric = 'min' | 'max' | 'final' | 'noiseMarginHigh' | 'noiseMarginLow' | 'belowLowRail' | 'aboveHighRail';
 
-  // ---- gather the values the limit applies to ----
-  let items: Item[] = [];
+/** A probe-level metric: one value for the whole record. */
+function probeItems(metric: ProbeMetric, m: ProbeMeasurements, probe: string): Gathered {
+  const nm = m.noiseMargins;
+  const pick: Record<ProbeMetric, { value: number | null; reason?: string; edge: number | null }> = {
+    min: { value: m.min, reason: m.reasons.min, edge: null },
+    max: { value: m.max, reason: m.reasons.max, edge: null },
+    final: { value: m.final, reason: m.reasons.final, edge: null },
+    noiseMarginHigh: { value: nm?.high ?? null, reason: m.reasons['noiseMargins.high'] ?? m.reasons.noiseMargins, edge: nm?.highEdge ?? null },
+    noiseMarginLow: { value: nm?.low ?? null, reason: m.reasons['noiseMargins.low'] ?? m.reasons.noiseMargins, edge: nm?.lowEdge ?? null },
+    belowLowRail: { value: m.rails?.belowLowRailV ?? null, reason: m.reasons.rails, edge: null },
+    aboveHighRail: { value: m.rails?.aboveHighRailV ?? null, reason: m.reasons.rails, edge: null },
+  };
+  const { value, reason, edge } = pick[metric];
+  const e = edge !== null ? m.edges.find((x) => x.number === edge) : undefined;
+  return { items: [{ value, lowValue: value, reason, edge, time: e?.t50 ?? null, label: e ? `the state after ${edgeLabel(e)}` : `probe ${probe}` }], note: '' };
+}
+
+/** Number of complete edges of the selected direction. */
+function countItems(m: ProbeMeasurements, selection: EdgeSelection, probe: string): Gathered {
+  const n = m.edges.filter((e) => e.complete && (selection === 'all' || e.direction === selection)).length;
+  return { items: [{ value: n, lowValue: n, edge: null, time: null, label: `probe ${probe}` }], note: '' };
+}
+
+/** Per matched source edge: delay50, or the threshold delays (last crossing for max, first for min). */
+function delayItems(metric: 'delay' | 'delayThreshold', m: ProbeMeasurements, selection: EdgeSelection, probe: string): Gathered {
+  if (m.delays === null) return { failure: `probe "${probe}" has no delay measurements: ${m.reasons.delays ?? 'no source waveform'}` };
+  let ds = m.delays.filter((d) => selection === 'all' || d.direction === selection);
+  if (ds.length === 0) return { failure: `the source waveform of probe "${probe}" has no ${selection === 'all' ? '' : selection + ' '}edge${m.reasons.delays ? `: ${m.reasons.delays}` : ''}` };
+  // Source edges whose probe edge would come after the end of the record are skipped, as long as
+  // some source edge did reach the probe.
   let note = '';
-  const selection: EdgeSelection = def.dir ?? spec.edges ?? 'all';
-  if (def.kind === 'probe') {
-    const value = metric === 'min' ? m.min : metric === 'max' ? m.max : metric === 'final' ? m.final : metric === 'noiseMarginHigh' ? m.noiseMargins?.high ?? null : m.noiseMargins?.low ?? null;
-    const reasonKey = metric === 'noiseMarginHigh' ? 'noiseMargins.high' : metric === 'noiseMarginLow' ? 'noiseMargins.low' : metric;
-    const edge = metric === 'noiseMarginHigh' ? m.noiseMargins?.highEdge ?? null : metric === 'noiseMarginLow' ? m.noiseMargins?.lowEdge ?? null : null;
-    items = [{ value, lowValue: value, reason: m.reasons[reasonKey] ?? m.reasons.noiseMargins, edge, time: edge !== null ? m.edges[edge]?.t50 ?? null : null, label: `probe ${spec.probe}` }];
-  } else if (def.kind === 'count') {
-    const n = m.edges.filter((e) => e.complete && (selection === 'all' || e.direction === selection)).length;
-    items = [{ value: n, lowValue: n, edge: null, time: null, label: `probe ${spec.probe}` }];
-  } else if (def.kind === 'delay') {
-    if (m.delays === null) return fail(`probe "${spec.probe}" has no delay measurements: ${m.reasons.delays ?? 'no source waveform'}`);
-    let ds = m.delays.filter((d) => selection === 'all' || d.direction === selection);
-    if (ds.length === 0) return fail(`the source waveform of probe "${spec.probe}" has no ${selection === 'all' ? '' : selection + ' '}edge${m.reasons.delays ? `: ${m.reasons.delays}` : ''}`);
-    // Source edges whose probe edge would come after the end of the record are skipped, as long as
-    // some source edge did reach the probe.
-    const cut = ds.filter((d) => d.cutOff);
-    if (cut.length > 0 && cut.length < ds.length) {
-      note = ` (${cut.length} source edge(s) near the end of the record, with no probe edge after them, not checked)`;
-      ds = ds.filter((d) => !d.cutOff);
-    }
-    for (const d of ds) {
-      // delay: 50 % to 50 %. delayThreshold: max compares the settled (last) threshold crossing, min the first.
-      const plain = metric === 'delay';
-      items.push({
-        value: plain ? d.delay50 : d.delayThresholdLast,
-        lowValue: plain ? d.delay50 : d.delayThresholdFirst,
-        reason: plain ? d.reasons.delay50 : d.reasons.delayThresholdLast,
-        lowReason: plain ? d.reasons.delay50 : d.reasons.delayThresholdFirst,
-        edge: d.probeEdge,
-        time: d.sourceT50,
-        label: `${d.direction} source edge ${d.sourceEdge} at ${formatSI(d.sourceT50, 's')}`,
-      });
-    }
-  } else {
-    if (m.edges.length === 0) return fail(`probe "${spec.probe}" has no edge: ${m.noEdgeReason ?? 'no transition found'}`);
-    const sel = m.edges.filter((e) => selection === 'all' || e.direction === selection);
-    if (sel.length === 0) return fail(`probe "${spec.probe}" has no ${selection} edge (it has ${m.edgeCount.rising} rising, ${m.edgeCount.falling} falling)`);
-    const complete = sel.filter((e) => e.complete);
-    if (complete.length < sel.length) note = ` (${sel.length - complete.length} edge(s) cut off by the end of the record not checked)`;
-    if (complete.length === 0) return fail(`probe "${spec.probe}" has no complete ${selection === 'all' ? '' : selection + ' '}edge: the record ends during the transition`);
-    const pct = (spec.max ?? spec.min)?.unit === '%';
-    let bandV: number | null = null;
-    if (metric === 'settling') bandV = A !== null ? bandVolts(checkBand(spec), A) : null;
-    for (const e of complete) {
-      let value: number | null = null;
-      let reason: string | undefined;
-      switch (metric) {
-        case 'overshoot':
-          value = pct ? e.overshootPct : e.overshootV;
-          reason = e.reasons.overshootV;
-          break;
-        case 'undershoot':
-          value = pct ? e.undershootPct : e.undershootV;
-          reason = e.reasons.undershootV;
-          break;
-        case 'preshoot':
-          value = pct ? e.preshootPct : e.preshootV;
-          reason = e.reasons.preshootV;
-          break;
-        case 'ringback':
-          value = pct ? e.ringbackPct : e.ringbackV;
-          reason = e.reasons.ringbackV;
-          break;
-        case 'rise':
-        case 'fall':
-          value = e.duration1090;
-          reason = e.reasons.duration1090;
-          break;
-        case 'rise2080':
-        case 'fall2080':
-          value = e.duration2080;
-          reason = e.reasons.duration2080;
-          break;
-        case 'crossings':
-          value = e.thresholdCrossings ?? e.crossings;
-          break;
-        case 'monotonic':
-          value = pct ? (A ? (100 * e.reversalV) / A : null) : e.reversalV;
-          break;
-        case 'settling': {
-          const s = e.settling.find((x) => bandV !== null && Math.abs(x.bandV - bandV) <= 1e-9 * Math.max(Math.abs(bandV), 1e-30));
-          if (!s) return fail(`settling in a ±${fmtLimit(spec.band ?? DEFAULT_BAND)} band was not measured for probe "${spec.probe}" (measure with settleBands including it, e.g. via checkWaveforms)`);
-          value = s.time;
-          reason = s.reason;
-          break;
-        }
-        default:
-          break;
-      }
-      items.push({ value, lowValue: value, reason, edge: e.index, time: e.t50, label: edgeLabel(e) });
-    }
-    if (metric === 'monotonic' && !spec.max) {
-      const bad = complete.filter((e) => !e.monotonic);
-      const worst = complete.reduce((a, e) => (e.reversalV > a.reversalV ? e : a), complete[0]!);
-      const measured = worst.reversalV;
-      if (bad.length > 0) {
-        return fail(`${bad.length} of ${complete.length} edges are not monotonic; worst: ${edgeLabel(worst)} reverses by ${formatSI(measured, 'V')}${note}`, {
-          measured,
-          measuredText: formatSI(measured, 'V'),
-          edge: worst.index,
-          time: worst.t50,
-        });
-      }
-      return {
-        probe: spec.probe,
-        metric: spec.metric,
-        limit,
-        measured,
-        measuredText: formatSI(measured, 'V'),
-        unit: 'V',
-        pass: true,
-        message: `all ${complete.length} edges are monotonic${note}`,
-        edge: worst.index,
-        time: worst.t50,
-      };
+  const cut = ds.filter((d) => d.cutOff);
+  if (cut.length > 0 && cut.length < ds.length) {
+    note = ` (${cut.length} source edge(s) near the end of the record, with no probe edge after them, not checked)`;
+    ds = ds.filter((d) => !d.cutOff);
+  }
+  const plain = metric === 'delay';
+  const items = ds.map((d) => ({
+    value: plain ? d.delay50 : d.delayThresholdLast,
+    lowValue: plain ? d.delay50 : d.delayThresholdFirst,
+    reason: plain ? d.reasons.delay50 : d.reasons.delayThresholdLast,
+    lowReason: plain ? d.reasons.delay50 : d.reasons.delayThresholdFirst,
+    edge: d.probeEdge,
+    time: d.sourceT50,
+    label: `${d.direction} source edge ${d.sourceEdge} at ${formatSI(d.sourceT50, 's')}`,
+  }));
+  return { items, note };
+}
+
+type EdgeMetric = Exclude<MetricName, ProbeMetric | 'delay' | 'delayThreshold' | 'edges'>;
+
+/** The value of one edge for an edge metric, and why it is null when it is; a failure when a band was not measured. */
+function edgeValue(metric: EdgeMetric, e: EdgeMeasurement, spec: CheckSpec, amplitude: number | null): { value: number | null; reason?: string } | { failure: string } {
+  const pct = (spec.max ?? spec.min)?.unit === '%';
+  const r = e.reasons;
+  switch (metric) {
+    case 'overshoot':
+      return { value: pct ? e.overshootPct : e.overshootV, reason: r.overshootV };
+    case 'undershoot':
+      return { value: pct ? e.undershootPct : e.undershootV, reason: r.undershootV };
+    case 'preshoot':
+      return { value: pct ? e.preshootPct : e.preshootV, reason: r.preshootV };
+    case 'ringback':
+      return { value: pct ? e.ringbackPct : e.ringbackV, reason: r.ringbackV };
+    case 'ringbackMargin':
+      return { value: e.ringbackMarginV, reason: r.ringbackMarginV };
+    case 'rise':
+    case 'fall':
+      return { value: e.duration1090, reason: r.duration1090 };
+    case 'rise2080':
+    case 'fall2080':
+      return { value: e.duration2080, reason: r.duration2080 };
+    case 'crossings':
+      return { value: e.thresholdCrossings ?? e.crossings };
+    case 'monotonic':
+      return { value: pct ? (amplitude ? (100 * e.reversalV) / amplitude : null) : e.reversalV };
+    case 'settling': {
+      const bandV = amplitude !== null ? bandVolts(checkBand(spec), amplitude) : null;
+      const s = e.settling.find((x) => bandV !== null && Math.abs(x.bandV - bandV) <= 1e-9 * Math.max(Math.abs(bandV), 1e-30));
+      if (!s) return { failure: `settling in a ±${fmtLimit(spec.band ?? DEFAULT_BAND)} band was not measured for probe "${spec.probe}" (measure with settleBands including it, e.g. via checkWaveforms)` };
+      return { value: s.time, reason: s.reason };
     }
   }
+}
 
-  // ---- compare ----
+/** The complete edges of the selected direction, or why there are none. */
+function selectedEdges(m: ProbeMeasurements, selection: EdgeSelection, probe: string): { edges: EdgeMeasurement[]; note: string } | { failure: string } {
+  if (m.edges.length === 0) return { failure: `probe "${probe}" has no edge: ${m.noEdgeReason ?? 'no transition found'}` };
+  const sel = m.edges.filter((e) => selection === 'all' || e.direction === selection);
+  if (sel.length === 0) return { failure: `probe "${probe}" has no ${selection} edge (it has ${m.edgeCount.rising} rising, ${m.edgeCount.falling} falling)` };
+  const complete = sel.filter((e) => e.complete);
+  if (complete.length === 0) return { failure: `probe "${probe}" has no complete ${selection === 'all' ? '' : selection + ' '}edge: the record ends during the transition` };
+  return { edges: complete, note: complete.length < sel.length ? ` (${sel.length - complete.length} edge(s) cut off by the end of the record not checked)` : '' };
+}
+
+/** Per complete edge of the selected direction, the metric's value. */
+function edgeItems(metric: EdgeMetric, m: ProbeMeasurements, spec: CheckSpec, selection: EdgeSelection): Gathered {
+  const sel = selectedEdges(m, selection, spec.probe);
+  if ('failure' in sel) return sel;
+  const items: Item[] = [];
+  for (const e of sel.edges) {
+    const v = edgeValue(metric, e, spec, m.levels?.amplitude ?? null);
+    if ('failure' in v) return v;
+    items.push({ value: v.value, lowValue: v.value, reason: v.reason, edge: e.number, time: e.t50, label: edgeLabel(e) });
+  }
+  return { items, note: sel.note };
+}
+
+/** The values a check's limit applies to. */
+function gather(metric: MetricName, m: ProbeMeasurements, spec: CheckSpec): Gathered {
+  const def = METRICS[metric];
+  const selection: EdgeSelection = def.dir ?? spec.edges ?? 'all';
+  switch (def.kind) {
+    case 'probe':
+      return probeItems(metric as ProbeMetric, m, spec.probe);
+    case 'count':
+      return countItems(m, selection, spec.probe);
+    case 'delay':
+      return delayItems(metric as 'delay' | 'delayThreshold', m, selection, spec.probe);
+    default:
+      return edgeItems(metric as EdgeMetric, m, spec, selection);
+  }
+}
+
+/** The header of every result of a check: what was checked against which limit. */
+function resultBase(spec: CheckSpec): Omit<CheckResult, 'measured' | 'measuredText' | 'pass' | 'message' | 'edge' | 'time'> {
+  return { probe: spec.probe, metric: spec.metric, limit: describeLimit(spec), unit: (spec.max ?? spec.min)?.unit ?? (spec.metric === 'monotonic' ? 'V' : null) };
+}
+
+function failed(spec: CheckSpec, message: string, extra: Partial<CheckResult> = {}): CheckResult {
+  return { ...resultBase(spec), measured: null, measuredText: 'n/a', pass: false, message, edge: null, time: null, ...extra };
+}
+
+/** `monotonic` without a limit: every edge must be monotonic; reports the largest reversal. */
+function monotonicVerdict(spec: CheckSpec, m: ProbeMeasurements, note: string): CheckResult {
+  const selection = spec.edges ?? 'all';
+  const edges = m.edges.filter((e) => e.complete && (selection === 'all' || e.direction === selection));
+  const worst = edges.reduce((a, e) => (e.reversalV > a.reversalV ? e : a), edges[0]!);
+  const measured = worst.reversalV;
+  const at = { measured, measuredText: formatSI(measured, 'V'), edge: worst.number, time: worst.t50 };
+  const bad = edges.filter((e) => !e.monotonic);
+  if (bad.length > 0) return failed(spec, `${bad.length} of ${edges.length} edges are not monotonic; worst: ${edgeLabel(worst)} reverses by ${formatSI(measured, 'V')}${note}`, at);
+  return { ...resultBase(spec), ...at, unit: 'V', pass: true, message: `all ${edges.length} edges are monotonic${note}` };
+}
+
+/** Compares the gathered values with the limits: the largest with `max`, the smallest with `min`. */
+function compareItems(spec: CheckSpec, items: Item[], note: string): CheckResult {
+  const base = resultBase(spec);
+  const unit = base.unit;
   for (const side of ['max', 'min'] as const) {
     if (!spec[side]) continue;
-    const f = items.find((i) => (side === 'max' ? i.value : i.lowValue) === null);
+    const missing = items.filter((i) => (side === 'max' ? i.value : i.lowValue) === null);
+    const f = missing[0];
     if (f) {
       const why = (side === 'max' ? f.reason : f.lowReason ?? f.reason) ?? 'not measurable';
-      const more = items.filter((i) => (side === 'max' ? i.value : i.lowValue) === null).length - 1;
-      return fail(`${spec.metric} could not be measured for ${f.label}: ${why}${more > 0 ? ` (and ${more} more)` : ''}`, { edge: f.edge, time: f.time });
+      return failed(spec, `${spec.metric} could not be measured for ${f.label}: ${why}${missing.length > 1 ? ` (and ${missing.length - 1} more)` : ''}`, { edge: f.edge, time: f.time });
     }
   }
   const hiItem = items.reduce((a, b) => (b.value! > a.value! ? b : a));
@@ -374,12 +389,9 @@ function evaluateOne(spec: CheckSpec, probes: Readonly<Record<string, ProbeMeasu
   const hi = hiItem.value!;
   const lo = loItem.lowValue!;
   const result = (pass: boolean, item: Item, value: number, message: string): CheckResult => ({
-    probe: spec.probe,
-    metric: spec.metric,
-    limit,
+    ...base,
     measured: value,
     measuredText: fmt(value, unit),
-    unit,
     pass,
     message: message + note,
     edge: item.edge,
@@ -387,17 +399,25 @@ function evaluateOne(spec: CheckSpec, probes: Readonly<Record<string, ProbeMeasu
   });
   const where = (i: Item): string => (items.length > 1 || i.edge !== null ? ` (worst: ${i.label})` : '');
   const name = spec.metric;
-  if (spec.max && hi > spec.max.value) {
-    return result(false, hiItem, hi, `${name} ${fmt(hi, unit)} exceeds max ${fmtLimit(spec.max)}${where(hiItem)}`);
-  }
-  if (spec.min && lo < spec.min.value) {
-    return result(false, loItem, lo, `${name} ${fmt(lo, unit)} is below min ${fmtLimit(spec.min)}${where(loItem)}`);
-  }
+  if (spec.max && hi > spec.max.value) return result(false, hiItem, hi, `${name} ${fmt(hi, unit)} exceeds max ${fmtLimit(spec.max)}${where(hiItem)}`);
+  if (spec.min && lo < spec.min.value) return result(false, loItem, lo, `${name} ${fmt(lo, unit)} is below min ${fmtLimit(spec.min)}${where(loItem)}`);
   if (spec.max) {
     const extra = spec.min ? `; smallest ${fmt(lo, unit)} ≥ min ${fmtLimit(spec.min)}` : '';
     return result(true, hiItem, hi, `${name} ${fmt(hi, unit)} within max ${fmtLimit(spec.max)}${where(hiItem)}${extra}`);
   }
   return result(true, loItem, lo, `${name} ${fmt(lo, unit)} meets min ${fmtLimit(spec.min!)}${where(loItem)}`);
+}
+
+function evaluateOne(spec: CheckSpec, probes: Readonly<Record<string, ProbeMeasurements>>): CheckResult {
+  const problems = validateCheck(spec);
+  if (problems.length > 0) return failed(spec, `invalid check: ${problems.join('; ')}`);
+  const m = Object.prototype.hasOwnProperty.call(probes, spec.probe) ? probes[spec.probe] : undefined;
+  if (!m) return failed(spec, `no probe named "${spec.probe}" (probes: ${Object.keys(probes).join(', ') || 'none'})`);
+  const metric = spec.metric as MetricName;
+  const g = gather(metric, m, spec);
+  if ('failure' in g) return failed(spec, g.failure);
+  if (metric === 'monotonic' && !spec.max) return monotonicVerdict(spec, m, g.note);
+  return compareItems(spec, g.items, g.note);
 }
 
 /** A probe waveform to measure: samples, sample interval and the measurement options. */

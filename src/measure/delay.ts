@@ -1,9 +1,9 @@
 // Delay from the driver's source waveform to a probe, per matching edge.
-import type { EdgeMeasurement, EdgeDirection } from './edges.js';
+import type { EdgeMeasurement, EdgeDirection } from './edge-types.js';
 import { formatSI } from './format.js';
 
 export interface DelayMeasurement {
-  /** Index of the source edge and of the probe edge matched to it (null when none matched). */
+  /** Number (from 1) of the source edge and of the probe edge matched to it (null when none matched). */
   sourceEdge: number;
   probeEdge: number | null;
   direction: EdgeDirection;
@@ -28,8 +28,11 @@ export interface DelayMeasurement {
    * arrives after the end of the record (checks skip these as long as some edge did match).
    */
   cutOff: boolean;
-  reasons: Record<string, string>;
+  /** Why a field above is null, keyed by the field's name. */
+  reasons: DelayReasons;
 }
+
+export type DelayReasons = Partial<Record<Exclude<keyof DelayMeasurement, 'reasons'>, string>>;
 
 export interface DelayOptions {
   /** Whether thresholds were given (so threshold crossings in the probe edges are vih/vil crossings). */
@@ -70,7 +73,7 @@ export function measureDelays(
   const out: DelayMeasurement[] = [];
   for (let si = 0; si < sourceEdges.length; si++) {
     const s = sourceEdges[si]!;
-    const reasons: Record<string, string> = {};
+    const reasons: DelayReasons = {};
     const lo = s.t50 - early;
     const hi = nextSame[si] ? nextSame[si]!.t50 - early : Infinity;
     const list = byDir[s.direction];
@@ -79,7 +82,7 @@ export function measureDelays(
     const p = cand !== undefined && cand.t50 < hi ? cand : undefined;
     if (p) ptr[s.direction]++;
     const d: DelayMeasurement = {
-      sourceEdge: s.index,
+      sourceEdge: s.number,
       probeEdge: null,
       direction: s.direction,
       sourceT50: s.t50,
@@ -99,7 +102,7 @@ export function measureDelays(
       out.push(d);
       continue;
     }
-    d.probeEdge = p.index;
+    d.probeEdge = p.number;
     d.probeT50 = p.t50;
     d.delay50 = p.t50 - s.t50;
     if (!opts.thresholds) {

@@ -1,7 +1,9 @@
 // State levels of a two-level waveform, IEEE Std 181-2011 (transitions, pulses and related waveforms),
 // histogram-mode method: the histogram of all sample values between the waveform's minimum and maximum
 // is split at its midpoint into a lower and an upper half; the low state level is the mode of the lower
-// half, the high state level the mode of the upper half. Nominal levels, when given, override.
+// half, the high state level the mode of the upper half. Specified levels override it (IEEE 181
+// allows specified reference levels): nominal ones, or the levels the net settles to (its DC
+// operating point for the source's two levels, computed by the engine).
 
 export type Samples = ArrayLike<number>;
 
@@ -10,6 +12,8 @@ export interface LevelOptions {
   low?: number;
   /** Nominal high state level (V); overrides the histogram estimate of the high level. */
   high?: number;
+  /** The levels the net settles to (V); override both the histogram and the nominal levels. */
+  settled?: { low: number; high: number };
   /** Number of histogram bins across [min, max]; default 100 (even numbers split cleanly). */
   bins?: number;
   /**
@@ -28,14 +32,17 @@ export interface ReferenceLevels {
   p90: number;
 }
 
+/** How a state level was found: histogram mode, given nominal value, or the net's settled (DC) level. */
+export type LevelSource = 'histogram' | 'nominal' | 'settled';
+
 export interface StateLevels {
   low: number;
   high: number;
   /** high − low (V), the waveform amplitude of IEEE 181. */
   amplitude: number;
   /** Where each level came from. */
-  lowSource: 'histogram' | 'nominal';
-  highSource: 'histogram' | 'nominal';
+  lowSource: LevelSource;
+  highSource: LevelSource;
   /** Number of histogram bins used (0 when both levels are nominal). */
   bins: number;
   /** True when the amplitude is below `minAmplitude`: no transitions can be measured. */
@@ -128,10 +135,12 @@ export function stateLevels(values: Samples, opts: LevelOptions = {}): StateLeve
     if (!Number.isFinite(values[i]!)) throw new RangeError(`sample ${i} is not a finite number`);
   }
   const bins = opts.bins ?? DEFAULT_BINS;
-  const needHist = opts.low === undefined || opts.high === undefined;
+  const given = { low: opts.settled?.low ?? opts.low, high: opts.settled?.high ?? opts.high };
+  const givenSource: LevelSource = opts.settled ? 'settled' : 'nominal';
+  const needHist = given.low === undefined || given.high === undefined;
   const hist = needHist ? histogramLevels(values, bins) : undefined;
-  const low = opts.low ?? hist!.low;
-  const high = opts.high ?? hist!.high;
+  const low = given.low ?? hist!.low;
+  const high = given.high ?? hist!.high;
   if (!Number.isFinite(low) || !Number.isFinite(high)) throw new RangeError('state levels must be finite');
   const { min, max } = extremes(values);
   const minAmplitude = opts.minAmplitude ?? 1e-9 + 1e-9 * Math.max(Math.abs(min), Math.abs(max));
@@ -140,8 +149,8 @@ export function stateLevels(values: Samples, opts: LevelOptions = {}): StateLeve
     low,
     high,
     amplitude,
-    lowSource: opts.low === undefined ? 'histogram' : 'nominal',
-    highSource: opts.high === undefined ? 'histogram' : 'nominal',
+    lowSource: given.low === undefined ? 'histogram' : givenSource,
+    highSource: given.high === undefined ? 'histogram' : givenSource,
     bins: needHist ? Math.max(2, Math.floor(bins)) : 0,
     flat: !(amplitude > minAmplitude),
     reference: referenceLevels(low, high),

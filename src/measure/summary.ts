@@ -1,20 +1,30 @@
 // One call that turns a probe's waveform into every measurement, as plain JSON-friendly data:
 // no typed arrays, no NaN or Infinity — a quantity that cannot be measured is null, and `reasons`
 // (on the probe, on each edge, on each delay) says why.
-import { analyzeEdges, DEFAULT_SETTLE_BAND, type BandSpec, type EdgeMeasurement, type Runt } from './edges.js';
+import { analyzeEdges } from './edges.js';
+import { DEFAULT_SETTLE_BAND, type BandSpec, type EdgeAnalysis, type EdgeMeasurement, type Runt } from './edge-types.js';
 import { extremes, stateLevels, type Samples, type StateLevels } from './levels.js';
 import { measureDelays, type DelayMeasurement } from './delay.js';
 import { resolveThresholds, type LogicThresholds, type ThresholdSpec } from './thresholds.js';
+import { analysisFlags, type Flag } from './flags.js';
+import { noiseMargins, type NoiseMargins } from './noise-margins.js';
+import { railExcursions, type Rails, type RailExcursions } from './aberrations.js';
 import { formatSI } from './format.js';
 
-const V = (x: number | null): string => formatSI(x, 'V');
-const S = (x: number | null): string => formatSI(x, 's');
+export type { Flag, FlagCode } from './flags.js';
+export type { NoiseMargins } from './noise-margins.js';
 
 export interface MeasureOptions {
   /** Time of sample 0 (s); default 0. */
   t0?: number;
   /** Nominal state levels (V) of the probe; each overrides the histogram estimate. */
   nominal?: { low?: number; high?: number };
+  /**
+   * The levels the net settles to at this probe for the source's low and high level (V), from the
+   * engine's DC operating point (sim/settled.ts); override the histogram and nominal levels. When they
+   * are (nearly) equal — no DC path from the driver — the histogram levels are used and `levels.note` says so.
+   */
+  settled?: { low: number; high: number };
   /** Histogram bins for the state levels; default 100. */
   bins?: number;
   /** Amplitude below which the waveform counts as flat (V). */
@@ -25,6 +35,8 @@ export interface MeasureOptions {
   source?: Samples;
   /** Nominal state levels of the source waveform (e.g. the signal's from/to). */
   sourceNominal?: { low?: number; high?: number };
+  /** The driver's output levels, for the rail excursions (below the low rail, above the high rail). */
+  rails?: Rails;
   /** Settling bands to measure; default [{ fraction: 0.05 }] (±5 % of the amplitude). */
   settleBands?: BandSpec[];
   /** Hysteresis as a fraction of the amplitude (see EdgeOptions.hysteresis); default 0. */
@@ -33,41 +45,16 @@ export interface MeasureOptions {
   earlyTolerance?: number;
 }
 
-export type FlagCode =
-  | 'no-edge'
-  | 'incomplete-edge'
-  | 'runt'
-  | 'non-monotonic'
-  | 'multiple-crossings'
-  | 'ringback-undefined-band'
-  | 'glitch-opposite-level'
-  | 'threshold-not-reached'
-  | 'not-settled'
-  | 'undefined-level'
-  | 'negative-noise-margin'
-  | 'unmatched-source-edge';
-
-export interface Flag {
-  code: FlagCode;
-  message: string;
-  /** Edge index the flag is about, when it is about one. */
-  edge?: number;
-  /** Instant (s) the flag is about, when there is one. */
-  time?: number;
-}
-
 /** The state levels as written to summary.json (the `flat` flag is reported as a flag instead). */
-export type LevelsSummary = Omit<StateLevels, 'flat'>;
+export type LevelsSummary = Omit<StateLevels, 'flat'> & {
+  /** How the levels were found: 'settled' (the net's DC levels), 'histogram', 'nominal', or 'mixed'. */
+  method: 'settled' | 'histogram' | 'nominal' | 'mixed';
+  /** Why the method differs from the one asked for (settled levels that do not follow the source). */
+  note?: string;
+};
 
-export interface NoiseMargins {
-  /** Worst (smallest) high-state margin over the record: lowest high level − vih (V). */
-  high: number | null;
-  /** Worst low-state margin: vil − highest low level (V). */
-  low: number | null;
-  /** Edge whose state set the worst margin; null when it was the initial state (or there is none). */
-  highEdge: number | null;
-  lowEdge: number | null;
-}
+/** The probe-level fields that can be null, and the two noise margins, by name. */
+export type ProbeReasonKey = 'min' | 'minTime' | 'max' | 'maxTime' | 'final' | 'levels' | 'noiseMargins' | 'noiseMargins.high' | 'noiseMargins.low' | 'delays' | 'rails';
 
 export interface ProbeMeasurements {
   samples: number;
@@ -94,28 +81,65 @@ export interface ProbeMeasurements {
   delays: DelayMeasurement[] | null;
   sourceLevels: LevelsSummary | null;
   noiseMargins: NoiseMargins | null;
+  /** Excursions below the driver's low rail and above its high rail; null without rails. */
+  rails: RailExcursions | null;
   /** Settling bands that were measured (half-widths as given). */
   settleBands: BandSpec[];
   flags: Flag[];
-  /** Why a probe-level field is null (keys: "min", "levels", "delays", "noiseMargins.high", …). */
-  reasons: Record<string, string>;
-}
-
-function summarizeLevels(l: ReturnType<typeof stateLevels>): LevelsSummary {
-  return {
-    low: l.low,
-    high: l.high,
-    amplitude: l.amplitude,
-    lowSource: l.lowSource,
-    highSource: l.highSource,
-    bins: l.bins,
-    reference: l.reference,
-  };
+  /** Why a probe-level field is null, keyed by the field's name ("noiseMargins.high" for a margin). */
+  reasons: Partial<Record<ProbeReasonKey, string>>;
 }
 
 function firstNonFinite(values: Samples): number {
   for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i]!)) return i;
   return -1;
+}
+
+function summarizeLevels(l: StateLevels, note?: string): LevelsSummary {
+  const method = l.lowSource === l.highSource ? l.lowSource : 'mixed';
+  const { flat: _flat, ...rest } = l;
+  return { ...rest, method, ...(note ? { note } : {}) };
+}
+
+/** The probe's state levels: settled when given and apart, else nominal overrides of the histogram. */
+function probeLevels(values: Samples, opts: MeasureOptions): { levels: StateLevels; summary: LevelsSummary } {
+  const base = { bins: opts.bins, minAmplitude: opts.minAmplitude };
+  const nominal = { ...base, low: opts.nominal?.low, high: opts.nominal?.high };
+  if (!opts.settled) {
+    const levels = stateLevels(values, nominal);
+    return { levels, summary: summarizeLevels(levels) };
+  }
+  const settled = stateLevels(values, { ...base, settled: opts.settled });
+  if (!settled.flat) return { levels: settled, summary: summarizeLevels(settled) };
+  const levels = stateLevels(values, nominal);
+  const s = opts.settled;
+  const note = `the settled levels (${formatSI(s.low, 'V')} and ${formatSI(s.high, 'V')}) do not follow the source — no DC path from the driver, e.g. a series capacitor — so the histogram levels are used`;
+  return { levels, summary: summarizeLevels(levels, note) };
+}
+
+/** Delays of the probe's edges against the source waveform's; null with a reason when there are none. */
+function sourceDelays(opts: MeasureOptions, analysis: EdgeAnalysis, thresholds: LogicThresholds | null, dt: number, t0: number, n: number) {
+  const out: { delays: DelayMeasurement[] | null; sourceLevels: LevelsSummary | null; flags: Flag[]; reason?: string } = { delays: null, sourceLevels: null, flags: [] };
+  if (!opts.source) return { ...out, reason: 'no source waveform given' };
+  if (opts.source.length !== n) throw new RangeError(`the source waveform has ${opts.source.length} samples, the probe ${n}: they must share the sampling`);
+  const bad = firstNonFinite(opts.source);
+  if (bad >= 0) return { ...out, reason: `the source waveform has a non-finite sample at index ${bad}` };
+  const sl = stateLevels(opts.source, { low: opts.sourceNominal?.low, high: opts.sourceNominal?.high, bins: opts.bins });
+  out.sourceLevels = summarizeLevels(sl);
+  const sa = analyzeEdges(opts.source, sl, { dt, t0, settleBands: [] });
+  if (sa.edges.length === 0) return { ...out, delays: [], reason: `the source waveform has no edge (${sa.noEdgeReason})` };
+  out.delays = measureDelays(sa.edges, analysis.edges, { thresholds: thresholds !== null, earlyTolerance: opts.earlyTolerance, dt });
+  for (const d of out.delays) if (d.probeEdge === null) out.flags.push({ code: 'unmatched-source-edge', message: d.reasons.delay50!, time: d.sourceT50 });
+  return out;
+}
+
+/** The result for a waveform that cannot be measured (a non-finite sample): every value null, with the reason. */
+function unmeasurable(out: ProbeMeasurements, bad: number): ProbeMeasurements {
+  const why = `the waveform has a non-finite sample at index ${bad} (t = ${formatSI(out.t0 + bad * out.dt, 's')})`;
+  for (const k of ['min', 'minTime', 'max', 'maxTime', 'final', 'levels', 'noiseMargins', 'delays', 'rails'] as const) out.reasons[k] = why;
+  out.noEdgeReason = `no edge: ${why}`;
+  out.flags.push({ code: 'no-edge', message: out.noEdgeReason });
+  return out;
 }
 
 /** Measure one probe. Throws RangeError only for invalid arguments (dt, empty waveform, bad thresholds). */
@@ -126,8 +150,6 @@ export function measureProbe(values: Samples, dt: number, opts: MeasureOptions =
   const t0 = opts.t0 ?? 0;
   const thresholds = opts.thresholds === undefined ? null : resolveThresholds(opts.thresholds);
   const settleBands = opts.settleBands ?? [DEFAULT_SETTLE_BAND];
-  const reasons: Record<string, string> = {};
-  const flags: Flag[] = [];
   const out: ProbeMeasurements = {
     samples: n,
     dt,
@@ -148,162 +170,37 @@ export function measureProbe(values: Samples, dt: number, opts: MeasureOptions =
     delays: null,
     sourceLevels: null,
     noiseMargins: null,
+    rails: null,
     settleBands,
-    flags,
-    reasons,
+    flags: [],
+    reasons: {},
   };
-
   const bad = firstNonFinite(values);
-  if (bad >= 0) {
-    const why = `the waveform has a non-finite sample at index ${bad} (t = ${S(t0 + bad * dt)})`;
-    for (const k of ['min', 'minTime', 'max', 'maxTime', 'final', 'levels', 'noiseMargins', 'delays']) reasons[k] = why;
-    out.noEdgeReason = `no edge: ${why}`;
-    flags.push({ code: 'no-edge', message: out.noEdgeReason });
-    return out;
-  }
+  if (bad >= 0) return unmeasurable(out, bad);
 
   const ex = extremes(values);
-  out.min = ex.min;
-  out.minTime = t0 + ex.iMin * dt;
-  out.max = ex.max;
-  out.maxTime = t0 + ex.iMax * dt;
-  out.final = values[n - 1]!;
+  const range = { min: ex.min, max: ex.max, minTime: t0 + ex.iMin * dt, maxTime: t0 + ex.iMax * dt };
+  Object.assign(out, { min: range.min, minTime: range.minTime, max: range.max, maxTime: range.maxTime, final: values[n - 1]! });
+  const { levels, summary } = probeLevels(values, opts);
+  out.levels = summary;
+  const analysis = analyzeEdges(values, levels, { dt, t0, thresholds: thresholds ?? undefined, settleBands, hysteresis: opts.hysteresis });
+  Object.assign(out, { edges: analysis.edges, runts: analysis.runts, initialState: analysis.initialState, noEdgeReason: analysis.noEdgeReason });
+  out.edgeCount = { rising: analysis.edges.filter((e) => e.direction === 'rising').length, falling: analysis.edges.filter((e) => e.direction === 'falling').length };
+  out.flags.push(...analysisFlags(analysis, thresholds));
 
-  const levels = stateLevels(values, {
-    low: opts.nominal?.low,
-    high: opts.nominal?.high,
-    bins: opts.bins,
-    minAmplitude: opts.minAmplitude,
-  });
-  out.levels = summarizeLevels(levels);
-  const analysis = analyzeEdges(values, levels, {
-    dt,
-    t0,
-    thresholds: thresholds ?? undefined,
-    settleBands,
-    hysteresis: opts.hysteresis,
-  });
-  out.edges = analysis.edges;
-  out.runts = analysis.runts;
-  out.initialState = analysis.initialState;
-  out.noEdgeReason = analysis.noEdgeReason;
-  out.edgeCount = {
-    rising: analysis.edges.filter((e) => e.direction === 'rising').length,
-    falling: analysis.edges.filter((e) => e.direction === 'falling').length,
-  };
+  if (thresholds) {
+    const nm = noiseMargins(analysis, thresholds, range);
+    out.noiseMargins = nm.margins;
+    out.flags.push(...nm.flags);
+    Object.assign(out.reasons, nm.reasons);
+  } else out.reasons.noiseMargins = 'no logic thresholds given';
 
-  // ---- flags ----
-  if (analysis.noEdgeReason) flags.push({ code: 'no-edge', message: analysis.noEdgeReason });
-  for (const r of analysis.runts) {
-    flags.push({
-      code: 'runt',
-      message: `runt pulse from the ${r.from} state crossed the 50 % level at ${S(r.time)}, peaking at ${V(r.peak)}, and returned${r.unfinished ? ' (record ended first)' : ''}`,
-      time: r.time,
-    });
-  }
-  for (const e of analysis.edges) {
-    const what = `${e.direction} edge ${e.index} (50 % at ${S(e.t50)})`;
-    if (!e.complete) flags.push({ code: 'incomplete-edge', message: `${what}: ${e.reasons.t90}`, edge: e.index, time: e.t50 });
-    if (!e.monotonic) flags.push({ code: 'non-monotonic', message: `${what}: reverses by ${V(e.reversalV)} between its 10 % and 90 % instants`, edge: e.index, time: e.t50 });
-    if (e.crossings > 1)
-      flags.push({ code: 'multiple-crossings', message: `${what}: crosses the 50 % level ${e.crossings} times before the next edge`, edge: e.index, time: e.t50 });
-    if (thresholds) {
-      const name = e.direction === 'rising' ? 'vih' : 'vil';
-      if (e.thresholdFirst === null && e.complete)
-        flags.push({ code: 'threshold-not-reached', message: `${what}: never crosses ${name} (${V(e.threshold)})`, edge: e.index, time: e.t50 });
-      if (e.reachesOppositeLevel)
-        flags.push({
-          code: 'glitch-opposite-level',
-          message: `${what}: after crossing ${name} it rings back to ${V(e.stateExtreme)}, past ${e.direction === 'rising' ? 'vil' : 'vih'} — a glitch`,
-          edge: e.index,
-          time: e.stateExtremeTime ?? e.t50,
-        });
-      else if (e.reentersUndefinedBand)
-        flags.push({
-          code: 'ringback-undefined-band',
-          message: `${what}: after crossing ${name} it rings back to ${V(e.stateExtreme)}, inside the undefined band between vil (${V(thresholds.vil)}) and vih (${V(thresholds.vih)})`,
-          edge: e.index,
-          time: e.stateExtremeTime ?? e.t50,
-        });
-    }
-    for (const s of e.settling) {
-      if (s.time === null && e.complete) flags.push({ code: 'not-settled', message: `${what}: ${s.reason}`, edge: e.index, time: e.t50 });
-    }
-  }
+  if (opts.rails) out.rails = railExcursions(opts.rails, range);
+  else out.reasons.rails = 'no driver rails given';
 
-  // ---- noise margins ----
-  if (!thresholds) {
-    reasons.noiseMargins = 'no logic thresholds given';
-  } else {
-    const { vih, vil } = thresholds;
-    let high: number | null = null;
-    let low: number | null = null;
-    let highEdge: number | null = null;
-    let lowEdge: number | null = null;
-    const takeHigh = (m: number, edge: number | null): void => {
-      if (high === null || m < high) {
-        high = m;
-        highEdge = edge;
-      }
-    };
-    const takeLow = (m: number, edge: number | null): void => {
-      if (low === null || m < low) {
-        low = m;
-        lowEdge = edge;
-      }
-    };
-    if (analysis.initialState !== null && analysis.initialStateExtreme !== null) {
-      const x = analysis.initialStateExtreme;
-      if (analysis.initialState === 'high') takeHigh(x - vih, null);
-      else takeLow(vil - x, null);
-    } else if (analysis.edges.length === 0) {
-      // Flat, or never in either state zone: classify the whole record against the thresholds.
-      if (ex.min >= vih) takeHigh(ex.min - vih, null);
-      else if (ex.max <= vil) takeLow(vil - ex.max, null);
-      else {
-        const msg = `the waveform (${V(ex.min)} … ${V(ex.max)}) has no edge and is not entirely above vih (${V(vih)}) or below vil (${V(vil)})`;
-        flags.push({ code: 'undefined-level', message: msg });
-        reasons['noiseMargins.high'] = reasons['noiseMargins.low'] = msg;
-      }
-    }
-    for (const e of analysis.edges) {
-      if (e.noiseMargin === null) continue;
-      if (e.direction === 'rising') takeHigh(e.noiseMargin, e.index);
-      else takeLow(e.noiseMargin, e.index);
-    }
-    if (high === null) reasons['noiseMargins.high'] ??= 'the waveform is never in the high state';
-    if (low === null) reasons['noiseMargins.low'] ??= 'the waveform is never in the low state';
-    if (high !== null && high < 0)
-      flags.push({ code: 'negative-noise-margin', message: `high-state noise margin is negative (${V(high)}): the level drops below vih while high`, ...(highEdge !== null ? { edge: highEdge } : {}) });
-    if (low !== null && low < 0)
-      flags.push({ code: 'negative-noise-margin', message: `low-state noise margin is negative (${V(low)}): the level rises above vil while low`, ...(lowEdge !== null ? { edge: lowEdge } : {}) });
-    out.noiseMargins = { high, low, highEdge, lowEdge };
-  }
-
-  // ---- delays against the source waveform ----
-  if (!opts.source) {
-    reasons.delays = 'no source waveform given';
-  } else if (opts.source.length !== n) {
-    throw new RangeError(`the source waveform has ${opts.source.length} samples, the probe ${n}: they must share the sampling`);
-  } else {
-    const sb = firstNonFinite(opts.source);
-    if (sb >= 0) {
-      reasons.delays = `the source waveform has a non-finite sample at index ${sb}`;
-    } else {
-      const sl = stateLevels(opts.source, { low: opts.sourceNominal?.low, high: opts.sourceNominal?.high, bins: opts.bins });
-      out.sourceLevels = summarizeLevels(sl);
-      const sa = analyzeEdges(opts.source, sl, { dt, t0, settleBands: [] });
-      if (sa.edges.length === 0) {
-        reasons.delays = `the source waveform has no edge (${sa.noEdgeReason})`;
-        out.delays = [];
-      } else {
-        out.delays = measureDelays(sa.edges, analysis.edges, { thresholds: thresholds !== null, earlyTolerance: opts.earlyTolerance, dt });
-        for (const d of out.delays) {
-          if (d.probeEdge === null)
-            flags.push({ code: 'unmatched-source-edge', message: d.reasons.delay50!, time: d.sourceT50 });
-        }
-      }
-    }
-  }
+  const d = sourceDelays(opts, analysis, thresholds, dt, t0, n);
+  Object.assign(out, { delays: d.delays, sourceLevels: d.sourceLevels });
+  out.flags.push(...d.flags);
+  if (d.reason) out.reasons.delays = d.reason;
   return out;
 }

@@ -13,7 +13,8 @@ import {
   type CheckSpec,
   type ProbeMeasurements,
 } from '../measure/index.js';
-import { netChecks, netThresholds } from '../scenario/checks.js';
+import { netChecks, netLevelMethod, netThresholds } from '../scenario/checks.js';
+import { netSettledLevels, type NetSettledLevels } from './net-levels.js';
 
 export interface NetMeasurements {
   /** Per probe, in probe order. */
@@ -37,8 +38,10 @@ function bandKey(b: BandSpec): string {
 /**
  * Measures every probe of a result and evaluates the scenario's checks. `extraChecks` are measured
  * for too (their settling bands), but only the scenario's own checks are evaluated into `results`.
+ * The state levels are the net's settled levels (`settled`, computed here when not given) unless the
+ * scenario asks for "levels": "histogram"; the rails are the driver's low and high level.
  */
-export function measureNet(net: Net, result: SimResult, extraChecks: readonly CheckSpec[] = []): NetMeasurements {
+export function measureNet(net: Net, result: SimResult, extraChecks: readonly CheckSpec[] = [], settled?: NetSettledLevels): NetMeasurements {
   const { record } = result;
   const rows = probeTraces(record);
   const samples = record.values.shape[1];
@@ -47,13 +50,17 @@ export function measureNet(net: Net, result: SimResult, extraChecks: readonly Ch
   const checks = netChecks(net);
   const all = [...checks, ...extraChecks];
   const measurements: Record<string, ProbeMeasurements> = {};
+  const levels = netLevelMethod(net) === 'settled' ? (settled ?? netSettledLevels(net, result.discretization)) : undefined;
   record.names.forEach((name, p) => {
     const seen = new Set<string>();
     const bands = requiredSettleBands(all, name).filter((b) => !seen.has(bandKey(b)) && seen.add(bandKey(b)));
     const thresholds = netThresholds(net, name);
+    const pair = levels?.get(name);
     measurements[name] = measureProbe(rows[p], record.dtSample, {
       source,
       sourceNominal,
+      rails: sourceNominal,
+      ...(pair ? { settled: pair } : {}),
       settleBands: bands,
       ...(thresholds ? { thresholds } : {}),
     });

@@ -21,6 +21,9 @@ import { AtomicBatch, type ChunkSink } from './atomic.js';
 import { writeCsv } from './csv.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
 import { addMeasurementSections } from './measurement-sections.js';
+import { measureNet } from './measure-net.js';
+import { crossingLevels, netSettledLevels } from './net-levels.js';
+import type { CheckResult } from '../measure/index.js';
 
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
@@ -94,6 +97,8 @@ export interface RunReport {
   partialViews: { view: ViewName; reason: string }[];
   /** Why the frames asked for were not drawn (null when they were, or none were asked for). */
   framesSkipped: string | null;
+  /** The verdicts of the scenario's checks, in file order (empty when it has none). */
+  checks: CheckResult[];
   /** Wall-clock seconds spent in the simulation proper, and in the whole call. */
   wallTime: { simulate: number; total: number };
 }
@@ -255,14 +260,16 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const record = selectProbes(result.record, net.probes.map((p) => p.name));
   const userResult: SimResult = { ...result, record };
 
+  const settled = netSettledLevels(net, result.discretization);
   const summary = buildSummary({
     scenario: { file, sha256: scenario.sha256, title: net.title },
     net,
     discretization: result.discretization,
     record,
+    crossingLevels: crossingLevels(net, settled),
   });
   // Per-probe measurements and the scenario's checks (src/output/measurement-sections.ts).
-  addMeasurementSections(summary, net, userResult);
+  const measured = addMeasurementSections(summary, net, userResult, measureNet(net, userResult, [], settled));
   if (plan.views.includes('eye')) {
     const { eyeInputFor } = await import('../views/draw.js');
     const { measureEye } = await import('../views/eye.js');
@@ -320,6 +327,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     skippedViews: plan.skipped,
     partialViews: plan.partial,
     framesSkipped: plan.framesSkipped,
+    checks: measured.results,
     wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 },
   };
 }

@@ -10,7 +10,8 @@ import { createHash } from 'node:crypto';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { Net } from '../../sim/model.js';
 import { probeTraces, type Discretization, type ProbeRecord, type SegmentPlan } from '../../sim/result.js';
-import { probeStats, type ProbeStats } from './crossing.js';
+import { probeStats, type CrossingLevel, type ProbeStats } from './crossing.js';
+import { crossingLevels, netSettledLevels } from './net-levels.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 
 /** Bumped when a core section changes shape incompatibly. */
@@ -66,6 +67,12 @@ export interface SummaryInput {
   record: ProbeRecord;
   /** Defaults to this package's name and version. */
   tool?: ToolInfo;
+  /**
+   * Per probe, the level of its "50 % at" crossing: the source's 50 % level through the probe's DC
+   * divider (net-levels.ts). Computed from `net` and `discretization` when absent; a record probe that
+   * is not in the net uses the level halfway between its initial and final value.
+   */
+  crossingLevels?: ReadonlyMap<string, CrossingLevel>;
 }
 
 export function sha256Hex(bytes: Uint8Array | string): string {
@@ -77,9 +84,10 @@ export function buildSummary(input: SummaryInput): Summary {
   const samples = record.values.shape[1];
   const rows = probeTraces(record);
   const probes: Record<string, ProbeStats> = {};
+  const levels = input.crossingLevels ?? crossingLevels(input.net, netSettledLevels(input.net, input.discretization));
   record.names.forEach((name, p) => {
     if (Object.prototype.hasOwnProperty.call(probes, name)) throw new Error(`duplicate probe name '${name}' in the record`);
-    probes[name] = probeStats(rows[p], record.dtSample);
+    probes[name] = probeStats(rows[p], record.dtSample, levels.get(name));
   });
   return {
     format: SUMMARY_FORMAT,

@@ -115,7 +115,13 @@ function edgeCell(summary: Json, base: (string | number)[], edges: EdgeLike[], f
   return i < 0 ? noneCell() : numCell(summary, [...base, 'edges', i, field], unit);
 }
 
+/** The longest settling time over the edges, or which edges never settled before the next edge or the end of the run. */
 function settlingCell(summary: Json, base: (string | number)[], edges: EdgeLike[]): Cell {
+  const unsettled = edges.filter((e) => e.complete !== false && (e.settling as { time?: Json }[] | undefined)?.[0]?.time === null);
+  if (unsettled.length > 0) {
+    const numbers = unsettled.map((e, i) => (isNum(e.number) ? e.number : i + 1));
+    return textCell(`not settled (edge${numbers.length > 1 ? 's' : ''} ${numbers.join(', ')})`, 'num');
+  }
   let best: { i: number; v: number } | null = null;
   edges.forEach((e, i) => {
     const s = (e.settling as { time?: Json }[] | undefined)?.[0]?.time;
@@ -155,7 +161,7 @@ export function measurementTable(summary: ReportSummary): { html: string; source
   const section = measurementSection(summary);
   if (section) {
     const prefix = section.key.split('.');
-    const head = ['Probe', 'Low', 'High', 'Rise', 'Fall', 'Overshoot', 'Undershoot', 'Ringback', 'Settling', 'Delay', 'Min', 'Max', 'Final'];
+    const head = ['Probe', 'Low', 'High', 'Rise', 'Fall', 'Overshoot', 'Undershoot', 'Ringback', 'Below low rail', 'Settling', 'Delay', 'Min', 'Max', 'Final'];
     const rows = Object.entries(section.probes).map(([name, m]) => {
       const base = [...prefix, name];
       const edges = (m.edges as EdgeLike[]) ?? [];
@@ -167,7 +173,8 @@ export function measurementTable(summary: ReportSummary): { html: string; source
         edgeCell(summary, base, edges, 'duration1090', 's', 'falling'),
         edgeCell(summary, base, edges, 'overshootPct', '%'),
         edgeCell(summary, base, edges, 'undershootPct', '%'),
-        edgeCell(summary, base, edges, 'ringbackV', 'V'),
+        edgeCell(summary, base, edges, 'ringbackPct', '%'),
+        numCell(summary, [...base, 'rails', 'belowLowRailV'], 'V'),
         settlingCell(summary, base, edges),
         delayCell(summary, base, m.delays),
         numCell(summary, [...base, 'min'], 'V'),
@@ -180,8 +187,10 @@ export function measurementTable(summary: ReportSummary): { html: string; source
         'measurements',
         head,
         rows,
-        'Worst value over all edges of each probe. Low and high: state levels; rise and fall: 10–90 % times; overshoot and undershoot: % of the swing; ' +
-          'settling: from the 50 % instant into the first settling band; delay: driver 50 % to probe 50 % (IEEE 181 definitions; see docs/measurements.md).',
+        'Worst value over all edges of each probe. Low and high: state levels (the levels the net settles to, unless the scenario asks for histogram levels); ' +
+          'rise and fall: 10–90 % times; overshoot and undershoot (IEEE 181, beyond and back past the settled level): % of the swing; ' +
+          'ringback: return below the settled level after first reaching 90 % (10 % falling), % of the swing; below low rail: lowest excursion below the driver’s low level; ' +
+          'settling: from the 50 % instant into ±5 %; delay: driver 50 % to probe 50 % (see docs/measurements.md).',
       ),
       source: 'measurements',
     };

@@ -1,6 +1,8 @@
-// "checks" and "thresholds" in a scenario: pass/fail limits on probe measurements and the logic
-// input levels they are measured against (see docs/scenario-format.md, docs/checks-and-sweeps.md).
+// "checks", "thresholds" and "levels" in a scenario: pass/fail limits on probe measurements, the
+// logic input levels and the state levels they are measured against (see docs/scenario-format.md,
+// docs/checks-and-sweeps.md, docs/measurements.md).
 //
+//   "levels": "settled" | "histogram"                          state levels (default "settled")
 //   "thresholds": "lvcmos33"                                   a preset (JEDEC JESD8 family)
 //   "thresholds": { "preset": "lvcmos18", "vdd": "1.71V" }      a preset at another supply
 //   "thresholds": { "vih": "2.0V", "vil": "0.8V" }             explicit levels
@@ -35,7 +37,7 @@ export const THRESHOLD_KEYS = ['preset', 'vdd', 'vih', 'vil'] as const;
 export const EDGE_SELECTIONS = ['rising', 'falling', 'all'] as const;
 
 /** Metrics whose value needs logic thresholds on the probe. */
-const NEEDS_THRESHOLDS = new Set(['noiseMarginHigh', 'noiseMarginLow', 'delayThreshold']);
+const NEEDS_THRESHOLDS = new Set(['noiseMarginHigh', 'noiseMarginLow', 'delayThreshold', 'ringbackMargin']);
 
 /** A Net as the scenario loader returns it: the engine's Net plus the verification settings. */
 export interface CheckedNet extends Net {
@@ -45,6 +47,20 @@ export interface CheckedNet extends Net {
   thresholds?: LogicThresholds;
   /** Per-probe thresholds, by probe name (override the scenario's). */
   probeThresholds?: Record<string, LogicThresholds>;
+  /** How the probes' state levels are found (absent: "settled"). */
+  levels?: LevelMethod;
+}
+
+/**
+ * "settled": each probe's levels are the net's DC levels for the driver's low and high level;
+ * "histogram": the IEEE 181 histogram-mode levels of each probe's own waveform.
+ */
+export const LEVEL_METHODS = ['settled', 'histogram'] as const;
+export type LevelMethod = (typeof LEVEL_METHODS)[number];
+
+/** The state-level method of a loaded scenario ("settled" unless it says "histogram"). */
+export function netLevelMethod(net: Net): LevelMethod {
+  return (net as CheckedNet).levels ?? 'settled';
 }
 
 /** The checks of a loaded scenario ([] when it has none). */
@@ -230,9 +246,21 @@ export function readVerification(
   r: Reader,
   top: Obj,
   probeNames: readonly string[] | undefined,
-): Pick<CheckedNet, 'checks' | 'thresholds' | 'probeThresholds'> | undefined {
+): Pick<CheckedNet, 'checks' | 'thresholds' | 'probeThresholds' | 'levels'> | undefined {
   let ok = true;
-  const out: Pick<CheckedNet, 'checks' | 'thresholds' | 'probeThresholds'> = {};
+  const out: Pick<CheckedNet, 'checks' | 'thresholds' | 'probeThresholds' | 'levels'> = {};
+  if (top.has('levels')) {
+    const what = `how the state levels are found: ${LEVEL_METHODS.map((m) => `"${m}"`).join(' or ')}`;
+    const m = top.string('levels', what);
+    if (m !== undefined && (LEVEL_METHODS as readonly string[]).includes(m)) out.levels = m as LevelMethod;
+    else {
+      if (m !== undefined) {
+        const guess = closest(m, LEVEL_METHODS);
+        r.fail(top.keyPath('levels'), top.get('levels'), `${what}${guess ? ` — did you mean "${guess}"?` : ''}`, top.pos);
+      }
+      ok = false;
+    }
+  }
   if (top.has('thresholds')) {
     const t = readThresholds(r, top.get('thresholds'), top.keyPath('thresholds'), top.pos);
     if (t) out.thresholds = t;

@@ -13,7 +13,7 @@ import { Obj, Reader } from './read.js';
 import { closest, joinKey, Problems, type Pos } from './problems.js';
 import { toPlain, type SrcNode } from './parse.js';
 
-export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'thresholds', 'checks'] as const;
+export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'levels', 'thresholds', 'checks'] as const;
 export const DRIVER_KEYS = ['signal', 'resistance'] as const;
 export const ITEM_KINDS = ['line', 'series', 'shunt'] as const;
 export const ITEM_KEYS = { line: ['name', 'line', 'length'], series: ['name', 'series'], shunt: ['name', 'shunt'] } as const;
@@ -86,6 +86,7 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   if (verification?.thresholds) net.thresholds = verification.thresholds;
   if (verification?.probeThresholds) net.probeThresholds = verification.probeThresholds;
   if (verification?.checks) net.checks = verification.checks;
+  if (verification?.levels) net.levels = verification.levels;
   return net;
 }
 

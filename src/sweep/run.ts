@@ -17,6 +17,8 @@ import { addMeasurementSections } from '../output/measurement-sections.js';
 import { AtomicBatch } from '../output/atomic.js';
 import { renderResult, writeRunOutputs, OUTPUT_FILES } from '../output/run.js';
 import { buildSummary } from '../output/summary.js';
+import { measureNet } from '../output/measure-net.js';
+import { crossingLevels, netSettledLevels } from '../output/net-levels.js';
 import { toolInfo, type ToolInfo } from '../output/tool.js';
 import { ScenarioError } from '../scenario/problems.js';
 import { parsePick, selectBest } from './pick.js';
@@ -147,8 +149,15 @@ async function writePointRun(plan: SweepPlan, point: number, dir: string, what: 
   const net = pointNet(plan, point);
   const result = simulate(net, { force: opts.force });
   const title = `${net.title} — ${what}: point ${point}, ${describeAssignments(pointAssignments(plan, point))}`;
-  const summary = buildSummary({ scenario: { file: plan.scenario.file, sha256: plan.scenario.sha256, title }, net, discretization: result.discretization, record: result.record });
-  addMeasurementSections(summary, net, result);
+  const settled = netSettledLevels(net, result.discretization);
+  const summary = buildSummary({
+    scenario: { file: plan.scenario.file, sha256: plan.scenario.sha256, title },
+    net,
+    discretization: result.discretization,
+    record: result.record,
+    crossingLevels: crossingLevels(net, settled),
+  });
+  addMeasurementSections(summary, net, result, measureNet(net, result, [], settled));
   const png = await renderResult(title, result, opts);
   return writeRunOutputs(dir, { title, result, summary }, png);
 }

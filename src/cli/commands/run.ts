@@ -6,6 +6,7 @@ import { formatProblem } from '../../scenario/problems.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../../exit-codes.js';
 import { formatRunReport } from '../format.js';
+import { CHECK_FAILED } from '../../checks/index.js';
 import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
 import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';
 import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
@@ -21,6 +22,8 @@ export interface RunCommandOptions {
   /** Number of animation frames, as typed. */
   frames?: string;
   report?: boolean;
+  /** Print the check verdicts but exit 0 when a check fails. */
+  ignoreChecks?: boolean;
 }
 
 /** The views and frame count asked for on the command line; throws UsageError on a bad value. */
@@ -103,7 +106,8 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
           io.out(`  ${'frames'.padEnd(9)}  ${report.frameFiles.length} PNG frames in ${join(dirs[i], 'frames')}\n`);
         }
       }
-      codes.push(EXIT.ok);
+      const failed = report.checks.filter((c) => !c.pass).length;
+      codes.push(failed > 0 && !opts.ignoreChecks ? CHECK_FAILED : EXIT.ok);
     } catch (e) {
       const f = describeFailure(e, files[i]);
       io.err(f.lines.map((l) => l + '\n').join(''));
@@ -124,7 +128,8 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
         'Views: ' +
         VIEW_NAMES.map((v) => `${v} (${VIEW_DESCRIPTIONS[v]})`).join('; ') +
         '.\n' +
-        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
+        'The verdicts of the scenario\'s "checks" are printed and written to summary.json.\n' +
+        'Exit codes: 0 ok, 1 a check failed (--ignore-checks: 0) or an internal error, 2 bad input or usage, 3 refused (over a size limit; --force overrides).',
     )
     .argument('<scenario...>', 'scenario files (JSON or YAML)')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>); with several scenarios, one subfolder per scenario under it')
@@ -134,6 +139,7 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('--views <list>', `views to draw, comma-separated from ${VIEW_NAMES.join(', ')} or all (default ${DEFAULT_RUN_VIEWS.join(',')})`)
     .option('--frames <n>', 'also write N PNG frames of the voltage along the route to frames/')
     .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')
+    .option('--ignore-checks', 'print the check verdicts but exit 0 even when a check fails')
     .action(async (files: string[], opts: RunCommandOptions) => {
       ctx.exitCode = await runCommand(files, opts, ctx);
     });

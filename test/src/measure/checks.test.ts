@@ -56,8 +56,8 @@ describe('evaluateChecks', () => {
     expect(pass!.measured!).toBeCloseTo(expected, 2);
     expect(pass!.limit).toBe('max 40 %');
     expect(fail!.pass).toBe(false);
-    expect(fail!.message).toMatch(/overshoot 37\.\d+ % exceeds max 10 % \(worst: rising edge 0 at/);
-    expect(fail!.edge).toBe(0);
+    expect(fail!.message).toMatch(/overshoot 37\.\d+ % exceeds max 10 % \(worst: rising edge 1 at/);
+    expect(fail!.edge).toBe(1);
     expect(volts!.pass).toBe(false);
     expect(volts!.unit).toBe('V');
     expect(volts!.measuredText).toMatch(/mV$/);
@@ -121,7 +121,7 @@ describe('evaluateChecks', () => {
       rx: { values: v, dt: 5 * ps, options: { nominal: { low: 0, high: 1 } } },
     });
     expect(results[0]!.pass).toBe(false);
-    expect(results[0]!.message).toMatch(/could not be measured for rising edge 0 .*: still outside the ±5 % band at the end of the record/);
+    expect(results[0]!.message).toMatch(/could not be measured for rising edge 1 .*: still outside the ±5 % band at the end of the record/);
   });
 
   it('delay, rise/fall, crossings, monotonic, noise margins and edge count on a clock', () => {
@@ -177,7 +177,7 @@ describe('evaluateChecks', () => {
     expect(results[4]!.message).toMatch(/fall 800 ps is below min 900 ps/);
     expect(results[7]!.measured!).toBeCloseTo(1.3, 12);
     expect(results[10]!.measured).toBe(3);
-    expect(results[11]!.message).toMatch(/1 of 1 edges are not monotonic; worst: rising edge 0 .* reverses by 700 mV/);
+    expect(results[11]!.message).toMatch(/1 of 1 edges are not monotonic; worst: rising edge 1 .* reverses by 700 mV/);
     expect(results[12]!.measured!).toBeCloseTo(1.5 - 2.0, 12);
     for (const r of results) expect(jsonProblems(r)).toEqual([]);
   });

@@ -167,8 +167,10 @@ describe('non-monotonic edges, glitches and ringback', () => {
     expect(e.t20).toBeCloseTo(1.2 * ns, 15);
     expect(e.t80).toBeCloseTo(2.2 * ns, 15);
     expect(e.t90).toBeCloseTo(2.3 * ns, 15);
-    // after crossing vih = 0.55 it fell back to 0.4 V, below vil: ringback 0.2 V, a glitch
-    expect(e.ringbackV).toBeCloseTo(0.2, 9);
+    // after crossing vih = 0.55 it fell back to 0.4 V, below vil: a ringback margin of 0.4 − 0.55 V, a
+    // glitch. After it first reached 90 % it never came back below 1 V: no ringback depth.
+    expect(e.ringbackMarginV).toBeCloseTo(0.4 - 0.55, 9);
+    expect(e.ringbackV).toBe(0);
     expect(e.stateExtreme).toBeCloseTo(0.4, 9);
     expect(e.reachesOppositeLevel).toBe(true);
     expect(m.noiseMargins!.high).toBeCloseTo(0.4 - 0.55, 9);
@@ -203,9 +205,13 @@ describe('non-monotonic edges, glitches and ringback', () => {
     expect(e.overshootPct).toBeCloseTo(30, 7);
     expect(e.overshootTime).toBeCloseTo(1.5 * ns, 15);
     expect(e.undershootV).toBeCloseTo(0.3, 9);
-    expect(e.ringbackV).toBeCloseTo(0.6, 9);
+    // ringback depth: 1 V − 0.7 V = 0.3 V below the settled level, 30 % of the swing; ringback margin:
+    // 0.7 V − vih 0.8 V = −0.1 V, back inside the undefined band
+    expect(e.ringbackV).toBeCloseTo(0.3, 9);
+    expect(e.ringbackPct).toBeCloseTo(30, 7);
     expect(e.ringbackLevel).toBeCloseTo(0.7, 9);
     expect(e.ringbackTime).toBeCloseTo(2 * ns, 15);
+    expect(e.ringbackMarginV).toBeCloseTo(-0.1, 9);
     expect(e.stateExtreme).toBeCloseTo(0.7, 9);
     expect(e.noiseMargin).toBeCloseTo(-0.1, 9);
     expect(e.reentersUndefinedBand).toBe(true);
@@ -223,7 +229,8 @@ describe('non-monotonic edges, glitches and ringback', () => {
     const e = measureProbe(v, dt, { nominal: { low: 0, high: 1 }, thresholds: { vih: 0.7, vil: 0.2 } }).edges[0]!;
     expect(e.direction).toBe('falling');
     expect(e.overshootV).toBeCloseTo(0.3, 9);
-    expect(e.ringbackV).toBeCloseTo(0.6, 9);
+    expect(e.ringbackV).toBeCloseTo(0.3, 9);
+    expect(e.ringbackMarginV).toBeCloseTo(0.2 - 0.3, 9);
     expect(e.stateExtreme).toBeCloseTo(0.3, 9);
     expect(e.noiseMargin).toBeCloseTo(0.2 - 0.3, 9);
     expect(e.reentersUndefinedBand).toBe(true);
@@ -307,7 +314,7 @@ describe('pulse trains', () => {
     const m = measureProbe(v, dt, { thresholds: 'lvcmos33' });
     expect(m.edgeCount).toEqual({ rising: 6, falling: 5 });
     m.edges.forEach((e, k) => {
-      expect(e.index).toBe(k);
+      expect(e.number).toBe(k + 1);
       expect(e.direction).toBe(k % 2 === 0 ? 'rising' : 'falling');
       expect(e.t50).toBeCloseTo(2 * ns + k * 5 * ns + 0.5 * ns, 14);
       expect(e.duration1090).toBeCloseTo(0.8 * ns, 14);
