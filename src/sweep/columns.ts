@@ -18,6 +18,8 @@ export interface MetricColumn {
   band?: CheckLimit;
   /** Only for probes with logic thresholds. */
   needsThresholds?: boolean;
+  /** The worst value is the smallest (a margin), not the largest. */
+  smallestWorst?: boolean;
 }
 
 const SUFFIX: Record<LimitUnit, string> = { '%': 'pct', V: 'V', s: 's', count: '' };
@@ -55,6 +57,7 @@ export function metricColumns(bands: readonly CheckLimit[] = []): MetricColumn[]
     c('undershoot', 'V'),
     c('ringback', 'V'),
     c('ringback', '%'),
+    c('ringbackMargin', 'V', { needsThresholds: true, smallestWorst: true }),
     c('settling', 's'),
   ];
   const seen: CheckLimit[] = [];
@@ -75,6 +78,7 @@ export function metricColumns(bands: readonly CheckLimit[] = []): MetricColumn[]
     c('edges', 'count'),
     c('noiseMarginHigh', 'V', { needsThresholds: true }),
     c('noiseMarginLow', 'V', { needsThresholds: true }),
+    c('belowLowRail', 'V'),
   );
   return cols;
 }
@@ -86,9 +90,10 @@ export function checkBands(net: Net): CheckLimit[] {
     .map((c) => c.band!);
 }
 
-/** A check that measures a column's value and always passes (its `measured` is the value). */
+/** A check that measures a column's value and always passes (its `measured` is the value: the worst over edges). */
 export function columnCheck(probe: string, col: MetricColumn): CheckSpec {
-  const spec: CheckSpec = { probe, metric: col.metric, max: { value: Number.MAX_VALUE, unit: col.unit } };
+  const limit = col.smallestWorst ? { min: { value: -Number.MAX_VALUE, unit: col.unit } } : { max: { value: Number.MAX_VALUE, unit: col.unit } };
+  const spec: CheckSpec = { probe, metric: col.metric, ...limit };
   if (col.band) spec.band = col.band;
   return spec;
 }

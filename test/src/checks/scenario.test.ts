@@ -1,7 +1,7 @@
 // "checks" and "thresholds" in scenario files: what loads, and every problem with its key path,
 // value, what was expected and line:col.
 import { describe, expect, it } from 'vitest';
-import { netChecks, netThresholds } from '../../../src/scenario/checks.js';
+import { netChecks, netLevelMethod, netThresholds } from '../../../src/scenario/checks.js';
 import { checkScenario, checkScenarioValue } from '../../../src/scenario/load.js';
 
 const BASE = {
@@ -113,6 +113,19 @@ describe('problems, each with key path, value and expectation', () => {
     expect(p).toHaveLength(1);
     expect(p[0]!.path).toBe('checks[0].metric');
     expect(p[0]!.expected).toMatch(/"thresholds" on the scenario or on probe "rx"/);
+  });
+
+  it('ringbackMargin needs thresholds too', () => {
+    const p = checkScenarioValue({ ...BASE, checks: [{ probe: 'rx', metric: 'ringbackMargin', min: '0.3V' }] }).problems;
+    expect(p.map((x) => x.path)).toEqual(['checks[0].metric']);
+  });
+
+  it('"levels" is "settled" (the default) or "histogram", with a suggestion for a typo', () => {
+    expect(netLevelMethod(checkScenarioValue(BASE).net!)).toBe('settled');
+    expect(netLevelMethod(checkScenarioValue({ ...BASE, levels: 'histogram' }).net!)).toBe('histogram');
+    const p = checkScenarioValue({ ...BASE, levels: 'histgram' }).problems;
+    expect(p.map((x) => [x.path, x.value])).toEqual([['levels', 'histgram']]);
+    expect(p[0]!.expected).toMatch(/"settled" or "histogram" — did you mean "histogram"\?/);
   });
 
   it('default probes (no "probes" key) are named driver and receiver', () => {

@@ -76,4 +76,46 @@ describe('run', () => {
     expect(events).toEqual(['guard', 'release']);
     expect(io.stdout + io.stderr).toBe('');
   });
+
+  // The matched 10 cm line of SMALL: the receiver settles at half of 1 V (DC divider 50/(50 + 50)),
+  // with no overshoot; a max 400 mV on "max" fails, the two others pass.
+  const CHECKED = {
+    ...SMALL,
+    checks: [
+      { probe: 'rx', metric: 'overshoot', max: '5%' },
+      { probe: 'rx', metric: 'max', max: '0.4V' },
+      { probe: 'rx', metric: 'final', min: '0.49V', max: '0.51V' },
+    ],
+  };
+
+  it('prints the check verdicts and the failing checks, and exits 1 when one fails', async () => {
+    const d = dir();
+    const file = writeScenario(d, 'checked.json', CHECKED);
+    const io = collect();
+    expect(await runCli(['run', file, '--out', join(d, 'o'), '--views', 'waveforms'], { io })).toBe(1);
+    expect(io.stdout).toMatch(/checks\s+1 of 3 FAIL\n\s+FAIL rx max max 400 mV: max 500(\.\d+)? mV exceeds max 400 mV\n/);
+    expect(readdirSync(join(d, 'o'))).toContain('summary.json');
+  });
+
+  it('--ignore-checks prints the same verdicts but exits 0; a passing set says so', async () => {
+    const d = dir();
+    const file = writeScenario(d, 'checked.json', CHECKED);
+    const io = collect();
+    expect(await runCli(['run', file, '--out', join(d, 'o'), '--views', 'waveforms', '--ignore-checks'], { io })).toBe(0);
+    expect(io.stdout).toMatch(/checks\s+1 of 3 FAIL/);
+    const passing = writeScenario(d, 'passing.json', { ...CHECKED, checks: [CHECKED.checks[0], CHECKED.checks[2]] });
+    const io2 = collect();
+    expect(await runCli(['run', passing, '--out', join(d, 'p'), '--views', 'waveforms'], { io: io2 })).toBe(0);
+    expect(io2.stdout).toMatch(/checks\s+all 2 PASS/);
+  });
+
+  it('"50 % at" is the first arrival of the source 50 % level through the DC divider', async () => {
+    const d = dir();
+    const file = writeScenario(d, 'small.json', SMALL);
+    const io = collect();
+    expect(await runCli(['run', file, '--out', join(d, 'o'), '--views', 'waveforms'], { io })).toBe(0);
+    // source 50 % at 100 ps + 125 ps/2; the settled receiver level is 0.5 V, its 50 % 0.25 V, reached
+    // 0.5 ns (10 cm at 5 ns/m) later: 662.5 ps
+    expect(io.stdout).toMatch(/rx\s+\S+ \S*V\s+\S+ \S*V\s+\S+ \S*V\s+662\.5 ps/);
+  });
 });

@@ -43,6 +43,15 @@ describe('first 50 % crossing (analytic linear ramps)', () => {
     expect(unstable.reason).toMatch(/non-finite/);
   });
 
+  it('with a given level (the settled 50 % of a net), times a pulse by its first arrival', () => {
+    // 1.5 V is crossed upward between samples 1 (1 V) and 2 (3 V): at 1 + 0.5/2
+    expect(crossing50([0, 1, 3, 1, 0], 1, { level: 1.5, direction: 'rising' })).toEqual({ level: 1.5, time: 1.25, direction: 'rising' });
+    // falling: from 3 V down through 2 V between samples 0 and 1
+    expect(crossing50([3, 1, 3], 2, { level: 2, direction: 'falling' }).time).toBe(1);
+    expect(crossing50([0, 1, 0], 1, { level: 2, direction: 'rising' }).reason).toMatch(/never crosses 2 V upward/);
+    expect(crossing50([0, 1], 1, { reason: 'no DC path' })).toEqual({ level: null, time: null, direction: null, reason: 'no DC path' });
+  });
+
   it('computes min, max, initial and final', () => {
     const s = probeStats([1, -2, 5, 4], 0.1);
     expect([s.min, s.max, s.initial, s.final]).toEqual([-2, 5, 1, 4]);
