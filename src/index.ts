@@ -56,3 +56,10 @@ export {
   type PairMetrics,
 } from '../sim/coupled/index.js';
 export { coupledFromOption, evaluateCoupled, formatCoupledReport, type CoupledInput, type CoupledReport } from './lines-report/index.js';
+// S-parameters and Touchstone files.
+export { parseTouchstone, readTouchstoneFile, toNetworkData, formatTouchstone, portsFromFileName, touchstoneFileName, type TouchstoneData, type WriteOptions } from './touchstone/index.js';
+export { computeSparams, runSparamsFile, SPARAMS_FILES, type SparamsReport, type SparamsRunOptions, type SparamsSummary } from './output/sparams.js';
+export { routeSParameters, selectRoute, type RouteSelection } from '../sim/sparams/route.js';
+export { defaultGrid, gridFrequencies, type GridSpec } from '../sim/sparams/grid.js';
+export { matrixAt, renormalize, singularValueTrace, toKind, entry, type NetworkData } from '../sim/sparams/network.js';
+export { abcdToS, sToAbcd, convertMatrix, type ParamKind } from '../sim/sparams/convert.js';

@@ -11,6 +11,7 @@ import { registerEyeCommand } from './commands/eye.js';
 import { registerCheckCommand } from './commands/check.js';
 import { registerSweepCommand } from './commands/sweep.js';
 import { registerMergeCommand } from './commands/merge.js';
+import { registerSparamsCommand } from './commands/sparams.js';
 import type { CliContext } from './context.js';
 import { EXIT, type ExitCode } from '../exit-codes.js';
 import { processIO, type CliIO } from './io.js';
@@ -37,6 +38,7 @@ export function createProgram(ctx: CliContext): Command {
   registerCheckCommand(program, ctx);
   registerSweepCommand(program, ctx);
   registerMergeCommand(program, ctx);
+  registerSparamsCommand(program, ctx);
   return program;
 }
 
