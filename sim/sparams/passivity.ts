@@ -43,16 +43,26 @@ export function passivityOfData(net: NetworkData): PassivityReport {
 
 /**
  * σmax(S) of a fitted S-parameter model on a fine grid: `refine` points in every interval between the
- * data's frequencies, from near 0 to the first one, and up to twice the top one.
+ * data's frequencies and from near 0 to the first one.
  */
 export function passivityOfFit(fit: FitResult, freq: ArrayLike<number>, refine = 10): PassivityReport {
-  const n = fit.model.ports;
-  const out = new Float64Array(2 * n * n);
   const grid: number[] = [];
   const top = freq[freq.length - 1];
-  const edges = [top * 1e-6, ...Array.from(freq), 2 * top];
+  const edges = [top * 1e-6, ...Array.from(freq)];
   for (let i = 0; i + 1 < edges.length; i++) for (let r = 0; r < refine; r++) grid.push(edges[i] + ((edges[i + 1] - edges[i]) * r) / refine);
-  grid.push(2 * top);
+  grid.push(top);
+  return worstOnGrid(fit, grid);
+}
+
+/** σmax(S) of a fitted model above the data, from the top frequency to `factor`·top in `points` steps (a fit is unconstrained there). */
+export function passivityAboveBand(fit: FitResult, top: number, factor = 2, points = 400): PassivityReport {
+  const grid = Array.from({ length: points }, (_, k) => top * (1 + ((factor - 1) * (k + 1)) / points));
+  return worstOnGrid(fit, grid);
+}
+
+function worstOnGrid(fit: FitResult, grid: readonly number[]): PassivityReport {
+  const n = fit.model.ports;
+  const out = new Float64Array(2 * n * n);
   let worst = -Infinity;
   let at = grid[0];
   for (const f of grid) {

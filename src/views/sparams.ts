@@ -77,13 +77,7 @@ export function drawSparams(s: Surface, area: Rect, input: SparamsPlotInput): vo
     markers,
     legend: 'below',
   });
-  drawLinePlot(s, { x: area.x, y: area.y + titleH + h1, w: area.w, h: h2 }, {
-    title: 'Phase of S21',
-    x,
-    y: { label: 'Phase', unit: '°', si: false, domain: [-200, 200] }, // wrapped to ±180°; the margin lets the ticks fall on ±100°
-    series: [{ name: 'arg S21', values: wrapDegrees(unwrappedPhase(s21)), xs, style: { color: OKABE_ITO.blue, dash: [], width: 1.5 } }],
-    legend: 'none',
-  });
+  drawLinePlot(s, { x: area.x, y: area.y + titleH + h1, w: area.w, h: h2 }, phasePanel(f, s21, input.delay, x));
   const tau = groupDelay(f, s21);
   drawLinePlot(s, { x: area.x, y: area.y + titleH + h1 + h2, w: area.w, h: bodyH - h1 - h2 }, {
     title: 'Group delay of S21 (−dφ/dω)',
@@ -93,6 +87,37 @@ export function drawSparams(s: Surface, area: Rect, input: SparamsPlotInput): vo
     markers: input.delay > 0 ? [{ axis: 'y', at: input.delay, label: `TD ${formatSi(input.delay, 's', 3)}`, color: THEME.mutedText, dash: [2, 3] }] : [],
     legend: 'none',
   });
+}
+
+/** Most turns of the wrapped phase drawn; beyond that the phase is drawn with the delay TD removed. */
+const MAX_TURNS = 20;
+
+/**
+ * The phase of S21 wrapped to ±180°, or, when it turns more than MAX_TURNS times over the band (a long
+ * line: the wrapped curve would be a solid band), unwrapped with the delay's part −ω·TD added back, which
+ * leaves the dispersion and the mismatch ripple.
+ */
+function phasePanel(f: Float64Array, s21: Float64Array, td: number, x: { label: string; unit: string; domain: [number, number] }) {
+  const phi = unwrappedPhase(s21);
+  const turns = Math.abs(phi[phi.length - 1] - phi[0]) / (2 * Math.PI);
+  const style = { color: OKABE_ITO.blue, dash: [] as number[], width: 1.5 };
+  if (turns <= MAX_TURNS || !(td > 0)) {
+    return {
+      title: 'Phase of S21',
+      x,
+      y: { label: 'Phase', unit: '°', si: false, domain: [-200, 200] as [number, number] }, // wrapped to ±180°; the margin lets the ticks fall on ±100°
+      series: [{ name: 'arg S21', values: wrapDegrees(phi), xs: f, style }],
+      legend: 'none' as const,
+    };
+  }
+  const excess = phi.map((p, k) => ((p + 2 * Math.PI * f[k] * td) * 180) / Math.PI);
+  return {
+    title: `Phase of S21 + ω·TD (the delay TD removed; the wrapped phase turns ${Math.round(turns)} times)`,
+    x,
+    y: { label: 'Phase', unit: '°', si: false },
+    series: [{ name: 'arg S21 + ω·TD', values: excess, xs: f, style }],
+    legend: 'none' as const,
+  };
 }
 
 /** dB values below −120 dB shown at −120 dB (a plot floor; the file keeps the values). */

@@ -1,0 +1,76 @@
+// The recursive-convolution companion (companion.ts) for a rational model of S-parameters instead of
+// admittances: what a Touchstone block gives after vector fitting. The model relates incident and
+// reflected power waves at each port, with real reference resistances r_i (Pozar, Microwave
+// Engineering, 4th ed., §4.3):  a = W(v + R·i),  b = W(v − R·i),  W = diag(1/(2√r_i)),  R = diag(r_i).
+// The convolution gives b(n+1) = S0·a(n+1) + h_s(n) with S0 = D + Σ Re'(R_k·μ_k) (constant) and h_s
+// the wave history. Substituting a and b and solving for the port currents:
+//   W(v − R i) = S0·W(v + R i) + h_s  ⇒  i = −M⁻¹(S0 − I)W·v − M⁻¹·h_s,  M = (I + S0)·W·R,
+// so the block is again i(n+1) = G_eq·v(n+1) + h(n) for a nodal solver, with G_eq = −M⁻¹(S0 − I)W and
+// h = −M⁻¹·h_s. M is singular only when S0 has an eigenvalue −1 (an instantaneous short); an
+// electrically short, well-matched block (S0 close to a through) gives a large but finite G_eq.
+// Pure delays of the entries are not handled here yet: fit with delays 'none', or keep the delay
+// shorter than the time step.
+import { invert, multiply } from '../dense.js';
+import { companionAdvance, companionHistory, createCompanion, type Companion } from './companion.js';
+import type { RationalModel } from './rational.js';
+
+export interface WaveCompanion {
+  /** The convolution of the S model, driven by the incident waves a. */
+  core: Companion;
+  ports: number;
+  /** Reference resistances (Ω). */
+  reference: Float64Array;
+  /** i(n+1) = G_eq·v(n+1) + h(n), n×n (S). */
+  geq: Float64Array;
+  /** h = hmap·h_s, n×n. */
+  hmap: Float64Array;
+  /** Scratch: wave history h_s and the current history h. */
+  hs: Float64Array;
+  h: Float64Array;
+  a: Float64Array;
+}
+
+/** Builds the companion of an S-parameter model for the time step dt, at rest. Throws if M is singular. */
+export function createWaveCompanion(model: RationalModel, reference: ArrayLike<number>, dt: number): WaveCompanion {
+  const n = model.ports;
+  const core = createCompanion(model, dt);
+  const s0 = core.geq; // in wave units: b = S0·a + h_s
+  const w = Float64Array.from(reference, (r) => 1 / (2 * Math.sqrt(r)));
+  const m = new Float64Array(n * n);
+  const sw = new Float64Array(n * n);
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++) {
+      const ipS = (i === j ? 1 : 0) + s0[i * n + j];
+      m[i * n + j] = ipS * w[j] * reference[j];
+      sw[i * n + j] = (s0[i * n + j] - (i === j ? 1 : 0)) * w[j];
+    }
+  const minv = invert(m, n);
+  if (!minv) throw new RangeError('the S-parameter model is an instantaneous short at a port (I + S0 is singular): it has no admittance companion');
+  const hmap = minv.map((x) => -x);
+  const geq = multiply(hmap, sw, n, n, n);
+  return { core, ports: n, reference: Float64Array.from(reference), geq, hmap, hs: new Float64Array(n), h: new Float64Array(n), a: new Float64Array(n) };
+}
+
+/** The history currents h(n) for the coming step into `h`. */
+export function waveHistory(c: WaveCompanion, h: Float64Array): void {
+  companionHistory(c.core, c.hs);
+  const n = c.ports;
+  for (let i = 0; i < n; i++) {
+    let acc = 0;
+    for (let j = 0; j < n; j++) acc += c.hmap[i * n + j] * c.hs[j];
+    h[i] = acc;
+    c.h[i] = acc;
+  }
+}
+
+/** Advances with the solved port voltages v(n+1): i(n+1) from the companion, then a(n+1) into the convolution. */
+export function waveAdvance(c: WaveCompanion, vNext: ArrayLike<number>, iOut?: Float64Array): void {
+  const n = c.ports;
+  for (let i = 0; i < n; i++) {
+    let cur = c.h[i];
+    for (let j = 0; j < n; j++) cur += c.geq[i * n + j] * vNext[j];
+    if (iOut) iOut[i] = cur;
+    c.a[i] = (vNext[i] + c.reference[i] * cur) / (2 * Math.sqrt(c.reference[i]));
+  }
+  companionAdvance(c.core, c.a);
+}
