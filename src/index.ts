@@ -63,3 +63,9 @@ export { routeSParameters, selectRoute, type RouteSelection } from '../sim/spara
 export { defaultGrid, gridFrequencies, type GridSpec } from '../sim/sparams/grid.js';
 export { matrixAt, renormalize, singularValueTrace, toKind, entry, type NetworkData } from '../sim/sparams/network.js';
 export { abcdToS, sToAbcd, convertMatrix, type ParamKind } from '../sim/sparams/convert.js';
+export { vectorFit, estimateDelays, evaluateFit, type FitOptions, type FitResult, type SampledResponse } from '../sim/sparams/vector-fit.js';
+export { fitBlock, type BlockFit, type BlockFitOptions } from '../sim/sparams/block.js';
+export { passivityOfData, passivityOfFit, passivityAboveBand, type PassivityReport } from '../sim/sparams/passivity.js';
+export { evaluateModel, type RationalModel } from '../sim/sparams/rational.js';
+export { createCompanion, companionHistory, companionAdvance, companionCurrent, startAtDc, type Companion } from '../sim/sparams/companion.js';
+export { createWaveCompanion, waveHistory, waveAdvance, type WaveCompanion } from '../sim/sparams/wave-companion.js';
