@@ -68,4 +68,4 @@ export { fitBlock, type BlockFit, type BlockFitOptions } from '../sim/sparams/bl
 export { passivityOfData, passivityOfFit, passivityAboveBand, type PassivityReport } from '../sim/sparams/passivity.js';
 export { evaluateModel, type RationalModel } from '../sim/sparams/rational.js';
 export { createCompanion, companionHistory, companionAdvance, companionCurrent, startAtDc, type Companion } from '../sim/sparams/companion.js';
-export { createWaveCompanion, waveHistory, waveAdvance, type WaveCompanion } from '../sim/sparams/wave-companion.js';
+export { createWaveCompanion, startWaveAtDc, waveHistory, waveAdvance, type WaveCompanion } from '../sim/sparams/wave-companion.js';

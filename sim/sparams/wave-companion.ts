@@ -74,3 +74,52 @@ export function waveAdvance(c: WaveCompanion, vNext: ArrayLike<number>, iOut?: F
   }
   companionAdvance(c.core, c.a);
 }
+
+/**
+ * Sets the state for a start in DC steady state at port voltages v0 (the DC operating point): with
+ * S(0) = D − Σ Re'(R_k/a_k), the DC currents are i0 = −M0⁻¹(S(0) − I)W·v0 (M0 = (I + S(0))·W·R, as for
+ * G_eq), the incident waves a0 = W(v0 + R·i0), and every pole state its steady value −a0/a_k.
+ * Returns i0 (the block's DC port currents, for the DC solve's check). Throws if M0 is singular.
+ */
+export function startWaveAtDc(c: WaveCompanion, model: RationalModel, v0: ArrayLike<number>): Float64Array {
+  const n = c.ports;
+  const s0 = Float64Array.from(model.d);
+  for (let k = 0; k < model.poles.length / 2; k++) {
+    const ar = model.poles[2 * k];
+    const ai = model.poles[2 * k + 1];
+    const q = ar * ar + ai * ai;
+    const wk = ai === 0 ? 1 : 2;
+    for (let e = 0; e < n * n; e++) {
+      const rr = model.residues[2 * (k * n * n + e)];
+      const ri = model.residues[2 * (k * n * n + e) + 1];
+      // −r/a = −r·conj(a)/|a|², real part
+      s0[e] -= (wk * (rr * ar + ri * ai)) / q;
+    }
+  }
+  const w = Float64Array.from(c.reference, (r) => 1 / (2 * Math.sqrt(r)));
+  const m = new Float64Array(n * n);
+  const rhs = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      m[i * n + j] = ((i === j ? 1 : 0) + s0[i * n + j]) * w[j] * c.reference[j];
+      rhs[i] -= (s0[i * n + j] - (i === j ? 1 : 0)) * w[j] * v0[j];
+    }
+  }
+  const minv = invert(m, n);
+  if (!minv) throw new RangeError('the S-parameter model is a short at DC at a port (I + S(0) is singular)');
+  const i0 = multiply(minv, rhs, n, n, 1);
+  for (let j = 0; j < n; j++) {
+    c.a[j] = w[j] * (v0[j] + c.reference[j] * i0[j]);
+    c.core.v[j] = c.a[j];
+  }
+  for (let k = 0; k < c.core.poles; k++) {
+    const ar = model.poles[2 * k];
+    const ai = model.poles[2 * k + 1];
+    const q = ar * ar + ai * ai;
+    for (let j = 0; j < n; j++) {
+      c.core.x[2 * (k * n + j)] = (-c.a[j] * ar) / q;
+      c.core.x[2 * (k * n + j) + 1] = (c.a[j] * ai) / q;
+    }
+  }
+  return i0;
+}

@@ -1,6 +1,6 @@
 // The S-parameter (power-wave) companion against circuits whose currents are known.
 import { describe, expect, it } from 'vitest';
-import { createWaveCompanion, waveAdvance, waveHistory } from '../../../sim/sparams/wave-companion.js';
+import { createWaveCompanion, startWaveAtDc, waveAdvance, waveHistory } from '../../../sim/sparams/wave-companion.js';
 import type { RationalModel } from '../../../sim/sparams/rational.js';
 
 describe('wave companion', () => {
@@ -54,5 +54,25 @@ describe('wave companion', () => {
     const e2 = maxErr(2e-12);
     expect(e1 / peak).toBeLessThan(1e-3);
     expect(e1 / e2).toBeGreaterThan(3.5);
+  });
+});
+
+describe('wave companion DC start', () => {
+  it('starts an R ‖ C one-port at V in steady state: current V/R from the first step on', () => {
+    // Z = R/(1 + sRC); S = (Z − r)/(Z + r) = (R − r − s·rRC)/(R + r + s·rRC) = D + k/(s − a) with
+    // D = −1, a = −(R + r)/(rRC), k = 2R/(rRC) (partial fractions; S(0) = (R − r)/(R + r), Pozar eq. 2.35).
+    const R = 120, C = 2e-12, r = 50, V = 0.7;
+    const a = -(R + r) / (r * R * C);
+    const model: RationalModel = { ports: 1, poles: Float64Array.of(a, 0), residues: Float64Array.of((2 * R) / (r * R * C), 0), d: Float64Array.of(-1) };
+    const c = createWaveCompanion(model, [r], 1e-12);
+    const i0 = startWaveAtDc(c, model, [V]);
+    expect(i0[0]).toBeCloseTo(V / R, 14);
+    const h = new Float64Array(1);
+    const i = new Float64Array(1);
+    for (let n = 0; n < 100; n++) {
+      waveHistory(c, h);
+      waveAdvance(c, [V], i);
+      expect(Math.abs(i[0] - V / R)).toBeLessThan(1e-12 * (V / R));
+    }
   });
 });
