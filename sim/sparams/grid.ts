@@ -27,12 +27,13 @@ export function stretchDelay(net: Net, sel: RouteSelection = {}): number {
  * The default grid: linear from Δf up to the band the scenario's fastest edge needs, 3.5/t_r (ten
  * times its knee frequency 0.35/t_r, Johnson & Graham, High-Speed Digital Design, ch. 1, as the
  * run's own band in sim/realize.ts), with at least 20 points per period 1/(2·TD) of the
- * reflections' ripple so every quarter-wave point of the stretch is resolved.
+ * reflections' ripple so every quarter-wave point of the stretch is resolved. A given top frequency
+ * replaces 3.5/t_r (and the points follow it).
  */
-export function defaultGrid(net: Net, sel: RouteSelection = {}): GridSpec {
+export function defaultGrid(net: Net, sel: RouteSelection = {}, topFrequency?: number): GridSpec {
   const edge = fastestEdge(net.driver.signal);
   const td = stretchDelay(net, sel);
-  const fmax = Number.isFinite(edge) ? 3.5 / edge : td > 0 ? 20 / td : 10e9;
+  const fmax = topFrequency ?? (Number.isFinite(edge) ? 3.5 / edge : td > 0 ? 20 / td : 10e9);
   const ripples = fmax * 2 * td;
   const points = Math.min(GRID_POINTS.max, Math.max(GRID_POINTS.min, Math.ceil(ripples * GRID_POINTS.perRipple) + 1));
   return { fmax, points, spacing: 'linear' };

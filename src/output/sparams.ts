@@ -55,7 +55,7 @@ export interface SparamsReport {
 
 /** The grid to use: the default for the stretch with the given fields replaced, checked. */
 export function exportGrid(net: Net, options: Pick<SparamsRunOptions, 'grid' | 'selection'> = {}): GridSpec {
-  const g: GridSpec = { ...defaultGrid(net, options.selection), ...options.grid };
+  const g: GridSpec = { ...defaultGrid(net, options.selection, options.grid?.fmax), ...options.grid };
   if (!(g.fmax > 0)) throw new UsageError(`the top frequency must be > 0 (got ${g.fmax})`);
   if (!(Number.isInteger(g.points) && g.points >= 2)) throw new UsageError(`the number of points must be a whole number ≥ 2 (got ${g.points})`);
   if (g.spacing === 'log' && g.fmin !== undefined && !(g.fmin > 0 && g.fmin < g.fmax)) throw new UsageError('a log grid needs 0 < fmin < fmax');
@@ -111,7 +111,10 @@ export async function runSparamsFile(file: string, outDir: string, options: Spar
   ];
   const text = formatTouchstone(network, { version, format: options.format ?? 'RI', comments });
   options.onPhase?.('render');
-  const png = await renderSparams({ title: `${scenario.net.title}: S-parameters`, network, delay: stretch.delay, width: options.width, height: options.height });
+  const route = scenario.net.route;
+  const whole = stretch.from === route[0].name && stretch.to === route[route.length - 1].name;
+  const portText = whole ? undefined : `port 1 where '${stretch.from}' begins, port 2 where '${stretch.to}' ends`;
+  const png = await renderSparams({ title: `${scenario.net.title}: S-parameters`, network, delay: stretch.delay, portText, width: options.width, height: options.height });
   options.onPhase?.('write');
   const json = JSON.stringify({ tool: toolInfo(), scenario: { file, sha256: scenario.sha256 }, touchstone: { version, file: SPARAMS_FILES.touchstone }, ...summary }, null, 2) + '\n';
   const files = await writeOutputFolder(outDir, [

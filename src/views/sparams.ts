@@ -19,6 +19,8 @@ export interface SparamsPlotInput {
   network: NetworkData;
   /** One-way delay of the lines in the stretch (s). */
   delay: number;
+  /** Where the ports are, e.g. "port 1 at the driver pin, port 2 at the receiver pin" (the default). */
+  portText?: string;
   /** Extra lines for the subtitle. */
   notes?: string[];
   width?: number;
@@ -59,7 +61,7 @@ export function drawSparams(s: Surface, area: Rect, input: SparamsPlotInput): vo
       s,
       { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
       input.title,
-      [`Port 1 at the driver pin, port 2 at the receiver pin; reference ${refText}; TD = ${formatSi(input.delay, 's', 4)}; ${qwText}.`, ...(input.notes ?? [])].join(' '),
+      [`${capitalize(input.portText ?? 'port 1 at the driver pin, port 2 at the receiver pin')}; reference ${refText}; TD = ${formatSi(input.delay, 's', 4)}; ${qwText}.`, ...(input.notes ?? [])].join(' '),
     );
   const bodyH = area.h - titleH;
   const h1 = Math.round(bodyH * 0.44);
@@ -88,6 +90,8 @@ export function drawSparams(s: Surface, area: Rect, input: SparamsPlotInput): vo
     legend: 'none',
   });
 }
+
+const capitalize = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);
 
 /** Most turns of the wrapped phase drawn; beyond that the phase is drawn with the delay TD removed. */
 const MAX_TURNS = 20;

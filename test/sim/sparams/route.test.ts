@@ -124,6 +124,8 @@ describe('frequency grids', () => {
     const f = gridFrequencies(g);
     expect(f[0]).toBeCloseTo(g.fmax / g.points, 3);
     expect(f[f.length - 1]).toBeCloseTo(g.fmax, 3);
+    // a given top frequency brings its own points: 20 per ripple up to 20 GHz
+    expect(defaultGrid(n, {}, 20e9).points).toBe(Math.ceil(20e9 * 2 * 1.8e-9 * 20) + 1);
   });
 
   it('spaces a log grid evenly in log f, ending exactly at fmax', () => {
