@@ -29,6 +29,8 @@ export interface EyeRunOptions extends SimulateOptions {
   thresholds?: { vih: number; vil: number };
   /** Sampling phase within the UI, 0..1 (default 0.5). */
   samplingPhase?: number;
+  /** Width of the sampling window as a share of the UI, 0..1 (default 0.2). */
+  samplingWindow?: number;
   width?: number;
   height?: number;
 }
@@ -68,7 +70,7 @@ export async function eyeScenarioFile(file: string, outDir: string, options: Eye
   });
   const { renderEye } = await import('../views/eye-plot.js');
   const thresholds = options.thresholds ?? scenarioThresholds(net, probe);
-  const input = eyeInputOf(net, result, probe, { thresholds, samplingPhase: options.samplingPhase });
+  const input = eyeInputOf(net, result, probe, { thresholds, samplingPhase: options.samplingPhase, samplingWindow: options.samplingWindow });
   const { png, eye } = await renderEye({ title: net.title, probe, input, width: options.width, height: options.height });
   addSummarySection(summary, 'eye', { probe, ...eye });
   let json: string;

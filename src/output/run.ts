@@ -272,13 +272,16 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const measured = addMeasurementSections(summary, net, userResult, measureNet(net, userResult, [], settled));
   if (plan.views.includes('eye')) {
     const { eyeInputFor } = await import('../views/draw.js');
-    const { measureEye } = await import('../views/eye.js');
+    const { measureEye, EYE_MIN_WINDOWS, fewWindowsNote } = await import('../views/eye.js');
     const { probe, input } = eyeInputFor(net, userResult, options.eye);
     const eye = measureEye(input);
     addSummarySection(summary, 'eye', { probe, ...eye });
-    if (eye.windows === 0) {
+    if (eye.windows < EYE_MIN_WINDOWS) {
       plan.views = plan.views.filter((v) => v !== 'eye');
-      plan.skipped.push({ view: 'eye', reason: 'the run is shorter than two unit intervals at the probe; `ladderwave eye` runs long enough' });
+      plan.skipped.push({
+        view: 'eye',
+        reason: eye.windows === 0 ? 'the run is shorter than two unit intervals at the probe; `ladderwave eye` runs long enough' : fewWindowsNote(eye.windows),
+      });
     }
   }
   await options.extendSummary?.({ net, result: userResult, summary });

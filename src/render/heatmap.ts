@@ -7,7 +7,7 @@ import { drawAnnotations, drawMarkerLabels, drawMarkerLines, estimateMarkerBand,
 import { coolWarm, hexToRgb, THEME, viridis, type ColorMap } from './palette.js';
 import { linearScale } from './scale.js';
 import { encodePng, Surface, type Rect } from './surface.js';
-import { axisTicks, axisTitle, targetTickCount } from './ticks.js';
+import { axisTicks, axisTitle, targetTickCount, type AxisTicks } from './ticks.js';
 
 export interface Grid2D {
   /** Row-major values: values[iy·nx + ix]; row iy = 0 is at yRange[0]. NaN = no data (drawn as background). */
@@ -32,6 +32,8 @@ export interface ColorScaleSpec {
   /** Replace the default map. */
   map?: ColorMap;
   si?: boolean;
+  /** The values are counts: label the colour bar at whole numbers only. */
+  integer?: boolean;
 }
 
 export interface HeatMapSpec {
@@ -112,11 +114,7 @@ export function drawHeatMap(surface: Surface, area: Rect, spec: HeatMapSpec): Fr
   const table = lut(map);
 
   // the colour bar's ticks do not depend on the plot size much; estimate for its width
-  const barTicksEstimate = axisTicks(norm.lo, norm.hi, {
-    unit: spec.color.unit,
-    si: spec.color.si,
-    target: targetTickCount(area.h - 150, 60),
-  });
+  const barTicksEstimate = colorBarTicks(norm.lo, norm.hi, spec.color, targetTickCount(area.h - 150, 60));
   const barTitle = axisTitle(spec.color.label, barTicksEstimate.unit);
   const rightReserve = colorBarWidth(surface, barTicksEstimate.labels, barTitle);
 
@@ -190,6 +188,16 @@ export function drawHeatMap(surface: Surface, area: Rect, spec: HeatMapSpec): Fr
   return frame;
 }
 
+/** Ticks of the colour bar: the axis ticks, or for counts the whole numbers among them (step ≥ 1). */
+export function colorBarTicks(lo: number, hi: number, spec: ColorScaleSpec, target: number): AxisTicks {
+  const t = axisTicks(lo, hi, { unit: spec.unit, si: spec.si, target });
+  if (!spec.integer) return t;
+  const step = Math.max(1, Math.round(t.step));
+  const values: number[] = [];
+  for (let v = Math.ceil(lo / step) * step; v <= hi + 1e-9; v += step) values.push(v);
+  return { values, labels: values.map((v) => String(v)), step, exponent: 0, unit: spec.unit ?? '' };
+}
+
 function drawColorBar(s: Surface, box: Rect, lo: number, hi: number, table: Uint8Array, spec: ColorScaleSpec): void {
   const x0 = box.x, top = box.y, h = box.h;
   const bar = linearScale([lo, hi], [top + h - 1, top]);
@@ -199,7 +207,7 @@ function drawColorBar(s: Surface, box: Rect, lo: number, hi: number, table: Uint
     s.fillRect(x0, j, BAR.width, 1, [table[c], table[c + 1], table[c + 2]]);
   }
   s.strokeRect(x0 - 1, top - 1, BAR.width + 2, h + 2, THEME.axis);
-  const ticks = axisTicks(lo, hi, { unit: spec.unit, si: spec.si, target: targetTickCount(h, 60) });
+  const ticks = colorBarTicks(lo, hi, spec, targetTickCount(h, 60));
   let maxW = 0;
   ticks.values.forEach((v, i) => {
     const py = Math.floor(bar.map(v));

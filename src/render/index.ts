@@ -2,7 +2,7 @@
 // Plot functions take plain data (typed arrays, names, units) and return PNG bytes.
 export { renderWaveforms, drawWaveforms, type WaveformsSpec } from './waveforms.js';
 export { linePlot, drawLinePlot, lineDomains, type LinePlotSpec, type LineSeries, type ImageSize } from './lineplot.js';
-export { heatMap, drawHeatMap, colorNormalization, type HeatMapSpec, type Grid2D, type ColorScaleSpec } from './heatmap.js';
+export { heatMap, drawHeatMap, colorNormalization, colorBarTicks, type HeatMapSpec, type Grid2D, type ColorScaleSpec } from './heatmap.js';
 export { type Marker, type Annotation, type LegendEntry, drawLegend, drawMarkerLines, drawMarkerLabels, drawAnnotations, fitText } from './marks.js';
 export { buildFrame, drawFrameBackground, drawFrameForeground, TYPE, type AxisSpec, type Frame, type FrameSpec } from './frame.js';
 export { Surface, encodePng, clipSegment, dashRuns, type Rect, type TextStyle, type LineStyle, type TextMetrics } from './surface.js';

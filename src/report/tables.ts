@@ -216,7 +216,8 @@ export function eyeTable(summary: ReportSummary): string | null {
   if (!eye || typeof eye !== 'object') return null;
   const row = (label: string, path: (string | number)[], unit: string): Cell[] => [textCell(label), numCell(summary, path, unit)];
   const rows: Cell[][] = [
-    row('Eye height', ['eye', 'eyeHeight'], 'V'),
+    row('Eye height (over the sampling window)', ['eye', 'eyeHeight'], 'V'),
+    row('Sampling window around the sampling instant', ['eye', 'samplingWindow', 'width'], 's'),
     row('Eye width', ['eye', 'eyeWidth'], 's'),
     row('Unit interval', ['eye', 'ui'], 's'),
     row('Threshold', ['eye', 'threshold', 'level'], 'V'),
@@ -227,7 +228,10 @@ export function eyeTable(summary: ReportSummary): string | null {
   const probe = at(summary, ['eye', 'probe']);
   const windows = at(summary, ['eye', 'windows']);
   const short = windows === 0 ? ' The run is shorter than one two-UI window at the probe; `ladderwave eye` runs the whole pattern.' : '';
-  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).${short}`);
+  const closed = at(summary, ['eye', 'open']) === false && typeof windows === 'number' && windows > 0 ? ' The eye is closed at the thresholds: the height is the gap between the traces, not an opening a receiver sees.' : '';
+  const warn = at(summary, ['eye', 'warnings']);
+  const warnings = Array.isArray(warn) && warn.length ? ` Warning: ${warn.filter((w) => typeof w === 'string').join('; ')}.` : '';
+  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).${short}${closed}${warnings}`);
 }
 
 // ---------------------------------------------------------------- checks

@@ -18,6 +18,7 @@ import {
   drawTitleBlock,
   LabelPlacer,
   lineStep,
+  NOTE_BOX,
   formatSiFixed,
   placeBoxedText,
   signed,
@@ -277,8 +278,8 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
   y += legendH;
   if (idealLines.length) {
     // a tinted box, so the note cannot be mistaken for the formulas
-    s.fillRect(inner.x, y, inner.w, idealH - 6, '#fff8e6');
-    s.strokeRect(inner.x, y, inner.w, idealH - 6, '#c98a00', 2);
+    s.fillRect(inner.x, y, inner.w, idealH - 6, NOTE_BOX.fill);
+    s.strokeRect(inner.x, y, inner.w, idealH - 6, NOTE_BOX.stroke, 2);
     let yi = y + 6;
     idealLines.forEach((l, i) => {
       const bold = i === 0 || i === idealLines.length - 1;

@@ -33,6 +33,8 @@ export interface EyeViewOptions {
   probe?: string;
   thresholds?: EyeInput['thresholds'];
   samplingPhase?: number;
+  /** Width of the sampling window as a share of the UI (default 0.2). */
+  samplingWindow?: number;
 }
 
 const HEADINGS: Readonly<Record<ViewName, string>> = {
@@ -47,7 +49,7 @@ export function eyeInputFor(net: Net, result: SimResult, opts: EyeViewOptions = 
   const probe = opts.probe ?? defaultEyeProbe(net);
   if (probe === undefined) throw new RangeError('an eye needs a probe, and the scenario has none');
   const thresholds = opts.thresholds ?? scenarioThresholds(net, probe);
-  return { probe, input: eyeInputOf(net, result, probe, { thresholds, samplingPhase: opts.samplingPhase }) };
+  return { probe, input: eyeInputOf(net, result, probe, { thresholds, samplingPhase: opts.samplingPhase, samplingWindow: opts.samplingWindow }) };
 }
 
 /** The logic thresholds the scenario gives for a probe (its own, else the scenario's), if any. */

@@ -15,6 +15,7 @@ import {
   type Rect,
 } from '../render/index.js';
 import { eyeDensity, foldEye, foldedExtent, type EyeInput, type EyeMeasurement, type EyeWindows } from './eye.js';
+import { drawWarningBox } from './panels.js';
 
 export interface EyePlotSpec extends ImageSize {
   title: string;
@@ -26,7 +27,13 @@ export interface EyePlotSpec extends ImageSize {
 const MARK = OKABE_ITO.vermillion;
 const si = (v: number, unit: string) => formatSi(v, unit);
 
-function subtitleOf(probe: string, eye: EyeMeasurement): string {
+/** ±10 % UI → "±10 % UI" (the half-width of the sampling window as a share of the UI). */
+function windowText(eye: EyeMeasurement): string {
+  return `±${Number(((eye.samplingWindow.share * 100) / 2).toPrecision(3))} % UI`;
+}
+
+/** The subtitle of eye.png: what was folded, and the eye height and width, or that the eye is closed. */
+export function eyeSubtitle(probe: string, eye: EyeMeasurement): string {
   const what =
     eye.signal === 'clock'
       ? 'clock'
@@ -35,9 +42,10 @@ function subtitleOf(probe: string, eye: EyeMeasurement): string {
         : `${eye.patternLength}-bit pattern`;
   const head = `Probe ${probe} · ${what}, UI ${si(eye.ui, 's')} · ${eye.windows} window${eye.windows === 1 ? '' : 's'} of 2 UI`;
   if (eye.eyeHeight === null || eye.eyeWidth === null) return head;
+  // never a height beside "closed": a closed eye is closed, whatever the gap between the traces
   return eye.open
-    ? `${head} · eye height ${si(eye.eyeHeight, 'V')}, eye width ${si(eye.eyeWidth, 's')}`
-    : `${head} · eye closed (height ${si(eye.eyeHeight, 'V')})`;
+    ? `${head} · eye height ${si(eye.eyeHeight, 'V')} over the sampling window (${windowText(eye)}), eye width ${si(eye.eyeWidth, 's')}`
+    : `${head} · eye closed at the thresholds`;
 }
 
 function thresholdMarkers(eye: EyeMeasurement): Marker[] {
@@ -63,11 +71,12 @@ function heatSpec(spec: EyePlotSpec, eye: EyeMeasurement, windows: EyeWindows, y
   for (let i = 0; i < counts.length; i++) if (counts[i] === 0) counts[i] = NaN; // empty: background
   return {
     title: spec.title,
-    subtitle: subtitleOf(spec.probe, eye),
+    subtitle: eyeSubtitle(spec.probe, eye),
     x: { label: 'Time in window', unit: 's', domain: [0, span] },
     y: { label: 'Voltage', unit: 'V', domain: yDomain },
     grid: { values: counts, nx, ny, xRange, yRange },
-    color: { kind: 'sequential', label: 'Hits per pixel', range: [0, Math.max(1, maxOf(counts))] },
+    // whole counts from 1 (the darkest colour, so a single trace reads on the light background)
+    color: { kind: 'sequential', label: 'Windows through the pixel', range: [1, Math.max(2, maxOf(counts))], integer: true },
     markers: thresholdMarkers(eye),
   };
 }
@@ -98,10 +107,25 @@ function label(s: Surface, text: string, x: number, y: number, area: Rect, basel
   s.text(text, left, top, { size: 13, bold: true, color: MARK, baseline: 'top' });
 }
 
+/** The sampling window as a light band over the whole plot height, labelled at its top. */
+function drawSamplingWindow(s: Surface, f: Frame, eye: EyeMeasurement): void {
+  const { plot } = f;
+  const x0 = f.x.map(eye.samplingWindow.from), x1 = f.x.map(eye.samplingWindow.to);
+  if (!(x1 - x0 >= 1)) return;
+  s.fillRect(x0, plot.y, x1 - x0, plot.h, THEME.page, 0.18);
+  s.vline(Math.round(x0), plot.y, plot.y + plot.h, THEME.axis, 1, [2, 3]);
+  s.vline(Math.round(x1), plot.y, plot.y + plot.h, THEME.axis, 1, [2, 3]);
+  const text = `sampling window ${windowText(eye)}`;
+  const w = s.measureText(text, 11).width;
+  s.fillRect((x0 + x1) / 2 - w / 2 - 3, plot.y + plot.h - 20, w + 6, 16, THEME.page, 0.9);
+  s.text(text, (x0 + x1) / 2, plot.y + plot.h - 12, { size: 11, color: THEME.mutedText, align: 'center', baseline: 'middle' });
+}
+
 function drawEyeMarks(s: Surface, f: Frame, eye: EyeMeasurement): void {
   const { plot } = f;
   const xs = Math.floor(f.x.map(eye.samplingOffset)) + 0.5;
-  if (eye.lowestOne !== null && eye.highestZero !== null && eye.eyeHeight !== null && eye.eyeHeight > 0) {
+  drawSamplingWindow(s, f, eye);
+  if (eye.open && eye.lowestOne !== null && eye.highestZero !== null && eye.eyeHeight !== null && eye.eyeHeight > 0) {
     const yTop = f.y.map(eye.lowestOne), yBot = f.y.map(eye.highestZero);
     bar(s, xs, yTop, xs, yBot);
     const yMid = f.y.map((eye.lowestOne + eye.threshold.vih) / 2);
@@ -124,6 +148,9 @@ function drawEyeMarks(s: Surface, f: Frame, eye: EyeMeasurement): void {
   if (!eye.open && eye.windows > 0) {
     label(s, 'eye closed at the sampling instant', xs + 10, plot.y + plot.h / 2, plot, 'bottom');
   }
+  // warnings where they cannot be missed: thresholds the signal cannot reach, too few windows
+  const warnings = [...eye.warnings, ...(eye.notes.windows && eye.windows > 0 ? [eye.notes.windows] : [])];
+  if (warnings.length) drawWarningBox(s, plot, ['Read with care:', ...warnings]);
 }
 
 /** Draws the eye into `area` of `surface`; returns the frame and the measurement. */

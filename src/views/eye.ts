@@ -18,8 +18,14 @@
 //   terms bit k is sampled at b_k + samplingTime with samplingTime = τ + p·UI + (D_r + D_f)/4.
 // - Threshold: the 50 % level between the probe's low and high state levels (IEEE 181 histogram
 //   mode, see src/measure), or the band [vil, vih] when logic thresholds are given.
-// - Eye height (noise-free): lowest "1" minus highest "0" at the sampling instant, where a window is a
-//   "1" or a "0" by the bit the driver sent. Negative when the eye is closed.
+// - Sampling window: the interval of width w·UI centred on the sampling instant (w = 0.2 by default:
+//   the central fifth of the UI, common practice), so a ringing peak that happens to fall on the
+//   sampling instant does not decide the eye height alone.
+// - Eye height (noise-free): the lowest "1" minus the highest "0" anywhere inside the sampling window,
+//   where a window is a "1" or a "0" by the bit the driver sent. Negative when the traces cross there.
+// - Open: every "1" above vih and every "0" below vil at the sampling instant (and so an eye width > 0).
+//   Thresholds the signal cannot reach (vih above its high state level, vil below its low one) are
+//   reported as a warning: such an eye is closed at the thresholds whatever its height.
 // - Eye width: the open time at the threshold: the longest interval around the sampling instant over
 //   which every "1" window stays above the threshold (above vih) and every "0" window below it
 //   (below vil); 0 when some window is on the wrong side at the sampling instant.
@@ -121,9 +127,17 @@ export interface EyeInput {
   thresholds?: { vih: number; vil: number };
   /** Sampling phase within the UI, 0..1 from the aligned crossing (default 0.5, the UI centre). */
   samplingPhase?: number;
+  /** Width of the sampling window as a share of the UI, 0..1 (default 0.2); the eye height is taken over it. */
+  samplingWindow?: number;
   /** Probe delay τ (s) to use instead of measuring it. */
   delay?: number;
 }
+
+/** Default width of the sampling window: the central fifth of the unit interval (common practice). */
+export const DEFAULT_SAMPLING_WINDOW = 0.2;
+
+/** Fewer folded windows than this make no eye worth drawing in a run (`ladderwave eye` runs long enough). */
+export const EYE_MIN_WINDOWS = 10;
 
 export interface EyeMeasurement {
   signal: 'bits' | 'clock';
@@ -144,10 +158,12 @@ export interface EyeMeasurement {
   samplingTime: number;
   /** The sampling instant inside the drawn window, which spans 0..2 UI (s). */
   samplingOffset: number;
+  /** The sampling window around it, inside the drawn window (s): the eye height is taken over it. */
+  samplingWindow: { from: number; to: number; width: number; share: number };
   /** The probe's state levels (IEEE 181 histogram mode) and their difference. */
   levels: { low: number; high: number; swing: number };
   threshold: { level: number; vil: number; vih: number; source: '50%' | 'vih/vil' };
-  /** Lowest "1" minus highest "0" at the sampling instant (V); negative = closed; null without both. */
+  /** Lowest "1" minus highest "0" over the sampling window (V); negative = the traces cross; null without both. */
   eyeHeight: number | null;
   lowestOne: number | null;
   highestZero: number | null;
@@ -159,6 +175,8 @@ export interface EyeMeasurement {
   open: boolean;
   /** Why a quantity is null or how it was chosen, keyed by field. */
   notes: Record<string, string>;
+  /** Things a user must know before trusting the numbers: thresholds the signal's levels do not reach. */
+  warnings: string[];
 }
 
 /** Linear interpolation of a sampled waveform at time t (clamped to the record). */
@@ -281,6 +299,8 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
   if (v.length < 2) throw new RangeError('measureEye: the waveform needs at least two samples');
   const p = input.samplingPhase ?? 0.5;
   if (!(p >= 0 && p <= 1)) throw new RangeError(`measureEye: samplingPhase must lie in 0..1, got ${p}`);
+  const wShare = input.samplingWindow ?? DEFAULT_SAMPLING_WINDOW;
+  if (!(wShare >= 0 && wShare <= 1)) throw new RangeError(`measureEye: samplingWindow must lie in 0..1, got ${wShare}`);
   const { ui } = timing;
   const notes: Record<string, string> = {};
 
@@ -309,6 +329,7 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
   const tEnd = t0 + (v.length - 1) * dt;
   const windows = windowsFor(timing, delay, t0, tEnd);
   const xs = ui / 2 + p * ui; // sampling instant inside the window
+  const halfWindow = (wShare * ui) / 2;
   let lowestOne = Infinity, highestZero = -Infinity, ones = 0, zeros = 0;
   let left = 0, right = 2 * ui, closed = false;
   windows.bits.forEach((k, w) => {
@@ -316,12 +337,13 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
     const b = timing.bit(k);
     const ts = start + xs;
     const vs = valueAt(v, t0, dt, ts);
+    const [lo, hi] = rangeOver(v, t0, dt, ts - halfWindow, ts + halfWindow);
     if (b) {
       ones++;
-      lowestOne = Math.min(lowestOne, vs);
+      lowestOne = Math.min(lowestOne, lo);
     } else {
       zeros++;
-      highestZero = Math.max(highestZero, vs);
+      highestZero = Math.max(highestZero, hi);
     }
     // open interval of this window around the sampling instant
     const ok = b ? (x: number) => x > threshold.vih : (x: number) => x < threshold.vil;
@@ -365,6 +387,8 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
 
   const n = windows.bits.length;
   if (n === 0) notes.windows = 'the record holds no complete two-UI window; run longer';
+  if (n > 0 && n < EYE_MIN_WINDOWS) notes.windows = fewWindowsNote(n);
+  const warnings = eyeWarnings(threshold, levels);
   const eyeHeight = ones && zeros ? lowestOne - highestZero : null;
   if (eyeHeight === null && n > 0) notes.eyeHeight = `the folded bits hold no ${ones ? '"0"' : '"1"'}`;
   const open = n > 0 && !closed && right > left;
@@ -384,6 +408,7 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
       samplingPhase: p,
       samplingTime: delay + p * ui + (timing.rampRise + timing.rampFall) / 4,
       samplingOffset: xs,
+      samplingWindow: { from: xs - halfWindow, to: xs + halfWindow, width: 2 * halfWindow, share: wShare },
       levels,
       threshold,
       eyeHeight,
@@ -394,9 +419,37 @@ export function foldEye(input: EyeInput): { eye: EyeMeasurement; windows: EyeWin
       openTo: open ? right : null,
       open,
       notes,
+      warnings,
     },
     windows,
   };
+}
+
+/** Why an eye of `n` (< EYE_MIN_WINDOWS) windows is not to be trusted. */
+export function fewWindowsNote(n: number): string {
+  return `only ${n} window${n === 1 ? '' : 's'} of 2 UI folded (fewer than ${EYE_MIN_WINDOWS}): too few for an eye to trust; \`ladderwave eye\` runs the whole pattern`;
+}
+
+/** Lowest and highest value of a sampled waveform over [ta, tb] (interpolated at both ends). */
+function rangeOver(v: ArrayLike<number>, t0: number, dt: number, ta: number, tb: number): [number, number] {
+  const a = valueAt(v, t0, dt, ta), b = valueAt(v, t0, dt, tb);
+  let lo = Math.min(a, b), hi = Math.max(a, b);
+  for (let i = Math.max(0, Math.ceil((ta - t0) / dt)); i < v.length && t0 + i * dt <= tb; i++) {
+    if (v[i] < lo) lo = v[i];
+    if (v[i] > hi) hi = v[i];
+  }
+  return [lo, hi];
+}
+
+/** Warnings for an eye: thresholds the signal's state levels do not reach. */
+function eyeWarnings(th: EyeMeasurement['threshold'], levels: EyeMeasurement['levels']): string[] {
+  const out: string[] = [];
+  const v = (x: number) => `${Number(x.toPrecision(3))} V`;
+  if (th.source === 'vih/vil') {
+    if (th.vih > levels.high) out.push(`vih ${v(th.vih)} is above the signal's high level ${v(levels.high)}: a "1" is not read as high, so the eye is closed at these thresholds`);
+    if (th.vil < levels.low) out.push(`vil ${v(th.vil)} is below the signal's low level ${v(levels.low)}: a "0" is not read as low, so the eye is closed at these thresholds`);
+  }
+  return out;
 }
 
 /**
@@ -416,7 +469,7 @@ export function measureEye(input: EyeInput): EyeMeasurement {
 }
 
 /** The EyeInput for one probe of a simulation result. */
-export function eyeInputOf(net: Net, result: SimResult, probe: string, opts: Partial<Pick<EyeInput, 'thresholds' | 'samplingPhase' | 'delay'>> = {}): EyeInput {
+export function eyeInputOf(net: Net, result: SimResult, probe: string, opts: Partial<Pick<EyeInput, 'thresholds' | 'samplingPhase' | 'samplingWindow' | 'delay'>> = {}): EyeInput {
   const { record } = result;
   return {
     signal: net.driver.signal,

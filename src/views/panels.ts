@@ -64,8 +64,8 @@ export function drawMessagePanel(s: Surface, area: Rect, heading: string, items:
   const h =
     2 * pad + head.length * hStep + 8 + bullets.reduce((acc, b) => acc + b.length * bStep + 4, 0) + (noteLines.length ? 8 + noteLines.length * nStep : 0);
   const box: Rect = { x: Math.round(area.x + (area.w - w) / 2), y: Math.round(area.y + Math.max(0, (area.h - h) / 2)), w, h: Math.round(h) };
-  s.fillRect(box.x, box.y, box.w, box.h, '#fff8e6');
-  s.strokeRect(box.x, box.y, box.w, box.h, '#c98a00', 2);
+  s.fillRect(box.x, box.y, box.w, box.h, NOTE_BOX.fill);
+  s.strokeRect(box.x, box.y, box.w, box.h, NOTE_BOX.stroke, 2);
   let y = box.y + pad;
   for (const l of head) {
     s.text(l, box.x + pad, y, { size: 16, bold: true, baseline: 'top' });
@@ -85,6 +85,32 @@ export function drawMessagePanel(s: Surface, area: Rect, heading: string, items:
     for (const l of noteLines) {
       s.text(l, box.x + pad, y, { size: 12, color: THEME.mutedText, baseline: 'top' });
       y += nStep;
+    }
+  }
+  return box;
+}
+
+/** The tint and border of a warning or note box (also the message panel's). */
+export const NOTE_BOX = { fill: '#fff8e6', stroke: '#c98a00' } as const;
+
+/**
+ * A tinted box of wrapped lines (the first bold) at the top-left of `area`, no wider than `maxWidth`;
+ * returns its rectangle. For warnings drawn on a plot, where they cannot be missed.
+ */
+export function drawWarningBox(s: Surface, area: Rect, lines: readonly string[], maxWidth = 560): Rect {
+  const pad = 10;
+  const w = Math.min(area.w - 2 * pad, maxWidth);
+  const wrapped = lines.map((l, i) => ({ bold: i === 0, parts: wrapText(s, l, 13, w - 2 * pad, i === 0) }));
+  const step = lineStep(s, 13, 3);
+  const h = 2 * pad + wrapped.reduce((a, l) => a + l.parts.length, 0) * step;
+  const box: Rect = { x: area.x + pad, y: area.y + pad, w, h };
+  s.fillRect(box.x, box.y, box.w, box.h, NOTE_BOX.fill, 0.95);
+  s.strokeRect(box.x, box.y, box.w, box.h, NOTE_BOX.stroke, 2);
+  let y = box.y + pad;
+  for (const l of wrapped) {
+    for (const part of l.parts) {
+      s.text(part, box.x + pad, y, { size: 13, bold: l.bold, baseline: 'top', color: THEME.text });
+      y += step;
     }
   }
   return box;

@@ -16,6 +16,7 @@ export interface EyeCommandOptions {
   vil?: string;
   thresholds?: string;
   sampleAt?: string;
+  sampleWindow?: string;
   quiet?: boolean;
   force?: boolean;
 }
@@ -31,9 +32,23 @@ function volts(text: string, option: string): number {
   return q.value;
 }
 
-/** Thresholds and sampling phase from the options; throws UsageError. */
-export function eyeSettings(opts: EyeCommandOptions): { thresholds?: { vih: number; vil: number }; samplingPhase?: number } {
-  const out: { thresholds?: { vih: number; vil: number }; samplingPhase?: number } = {};
+/** "50%" → 0.5: a share of the unit interval from 0 % to 100 %; throws UsageError. */
+function uiShare(text: string, option: string, example: string): number {
+  const m = /^\s*([0-9]*\.?[0-9]+)\s*%\s*$/.exec(text);
+  const p = m ? Number(m[1]) / 100 : NaN;
+  if (!(p >= 0 && p <= 1)) throw new UsageError(`${option} '${text}': expected a share of the unit interval from 0% to 100%, e.g. ${example}`);
+  return p;
+}
+
+export interface EyeSettings {
+  thresholds?: { vih: number; vil: number };
+  samplingPhase?: number;
+  samplingWindow?: number;
+}
+
+/** Thresholds, sampling phase and sampling window from the options; throws UsageError. */
+export function eyeSettings(opts: EyeCommandOptions): EyeSettings {
+  const out: EyeSettings = {};
   const explicit = opts.vih !== undefined || opts.vil !== undefined;
   if (explicit && opts.thresholds !== undefined) throw new UsageError('give either --thresholds or --vih and --vil, not both');
   if (explicit) {
@@ -50,12 +65,8 @@ export function eyeSettings(opts: EyeCommandOptions): { thresholds?: { vih: numb
       throw new UsageError(`--thresholds: ${(e as Error).message}`);
     }
   }
-  if (opts.sampleAt !== undefined) {
-    const m = /^\s*([0-9]*\.?[0-9]+)\s*%\s*$/.exec(opts.sampleAt);
-    const p = m ? Number(m[1]) / 100 : NaN;
-    if (!(p >= 0 && p <= 1)) throw new UsageError(`--sample-at '${opts.sampleAt}': expected a share of the unit interval from 0% to 100%, e.g. 50%`);
-    out.samplingPhase = p;
-  }
+  if (opts.sampleAt !== undefined) out.samplingPhase = uiShare(opts.sampleAt, '--sample-at', '50%');
+  if (opts.sampleWindow !== undefined) out.samplingWindow = uiShare(opts.sampleWindow, '--sample-window', '20%');
   return out;
 }
 
@@ -69,6 +80,7 @@ export async function eyeCommand(file: string, opts: EyeCommandOptions, ctx: Cli
     const r = await eyeScenarioFile(file, outDir, { probe: opts.probe, force: opts.force, ...settings });
     if (!opts.quiet) {
       for (const w of r.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
+      for (const w of r.eye.warnings) io.err(`warning: ${file}: eye: ${w}\n`);
       const e = r.eye;
       const si = (v: number | null, unit: string) => (v === null ? '—' : formatSI(v, unit, 4));
       const lines = [
@@ -76,7 +88,10 @@ export async function eyeCommand(file: string, opts: EyeCommandOptions, ctx: Cli
         `  probe      ${r.probe}  (${e.signal === 'clock' ? 'clock' : e.pattern}, UI ${si(e.ui, 's')}, ${e.windows} windows over ${si(r.result.discretization.duration, 's')})`,
         `  threshold  ${si(e.threshold.level, 'V')}${e.threshold.source === 'vih/vil' ? ` (vil ${si(e.threshold.vil, 'V')}, vih ${si(e.threshold.vih, 'V')})` : ' (50 % of the probe’s levels)'}`,
         `  sampling   ${si(e.samplingTime, 's')} after each bit starts at the driver (probe delay ${si(e.delay, 's')})`,
-        `  eye        height ${si(e.eyeHeight, 'V')}, width ${si(e.eyeWidth, 's')}${e.open ? '' : '  (closed)'}`,
+        `  window     ${si(e.samplingWindow.to - e.samplingWindow.from, 's')} around the sampling instant (${Number((e.samplingWindow.share * 100).toPrecision(3))} % of the UI): the eye height is taken over it`,
+        e.open
+          ? `  eye        height ${si(e.eyeHeight, 'V')}, width ${si(e.eyeWidth, 's')}`
+          : `  eye        closed at the thresholds${e.warnings.length ? ' (see the warning)' : ''}`,
         `  wrote      ${r.files.join('\n             ')}`,
       ];
       io.out(lines.join('\n') + '\n');
@@ -102,7 +117,7 @@ export function registerEyeCommand(program: Command, ctx: CliContext): void {
     .description(
       'Simulate the scenario long enough for its whole bit pattern (PRBS-7 at least once; 64 unit intervals of a clock)\n' +
         'plus the route’s settle time, fold the probe’s waveform into windows of two unit intervals, and write eye.png\n' +
-        'and summary.json (section "eye": eye height, eye width, sampling instant, threshold).\n' +
+        'and summary.json (section "eye": eye height over the sampling window, eye width, sampling instant, threshold).\n' +
         'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
     )
     .argument('<scenario>', 'scenario file (JSON or YAML) whose driver sends bits or a clock')
@@ -112,6 +127,7 @@ export function registerEyeCommand(program: Command, ctx: CliContext): void {
     .option('--vil <volts>', 'logic low threshold, e.g. 0.8V (with --vih)')
     .option('--thresholds <preset>', 'logic thresholds from a preset, e.g. lvcmos33')
     .option('--sample-at <share>', 'sampling instant as a share of the unit interval after the crossing (default 50%)')
+    .option('--sample-window <share>', 'width of the sampling window around the sampling instant, as a share of the unit interval; the eye height is taken over it (default 20%)')
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')
     .action(async (file: string, opts: EyeCommandOptions) => {

@@ -9,7 +9,7 @@ import { formatRunReport } from '../format.js';
 import { CHECK_FAILED } from '../../checks/index.js';
 import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
 import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';
-import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
+import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_FILES, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
 
 export interface RunCommandOptions {
   out?: string;
@@ -98,8 +98,10 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
         for (const s of report.partialViews) io.err(`warning: ${files[i]}: ${s.view} view: ${s.reason}\n`);
         if (report.framesSkipped) io.err(`warning: ${files[i]}: no frames: ${report.framesSkipped}\n`);
         const eye = report.summary.eye as EyeMeasurement | undefined;
-        const thin = eye && eye.windows > 0 ? eyeCoverageNote(eye) : null;
+        const drawn = report.files.some((f) => basename(f) === VIEW_FILES.eye);
+        const thin = eye && drawn ? eyeCoverageNote(eye) : null;
         if (thin) io.err(`warning: ${files[i]}: ${thin}\n`);
+        for (const w of eye?.warnings ?? []) io.err(`warning: ${files[i]}: eye: ${w}\n`);
         io.out((i > 0 ? '\n' : '') + formatRunReport(report));
         if (cc?.result) io.out(formatCrossCheck(cc.result, ccFile));
         if (report.frameFiles.length) {

@@ -126,6 +126,16 @@ describe('ladderwave run --views/--frames/--report', () => {
     expect(readdirSync(out).sort()).toEqual(['bounce.png', 'probes.csv', 'summary.json', 'waveforms.png']);
   });
 
+  it('does not draw an eye of fewer than ten windows in a run, and says why', async () => {
+    const d = dir();
+    const file = writeScenario(d, 'bits.json', BITS); // 5 ns of 1 ns bits
+    const out = join(d, 'o');
+    const io = collect();
+    expect(await runCli(['run', file, '--out', out, '--views', 'eye'], { io })).toBe(0);
+    expect(io.stderr).toMatch(/no eye view: only \d windows? of 2 UI folded \(fewer than 10\): too few for an eye to trust; `ladderwave eye` runs the whole pattern/);
+    expect(readdirSync(out)).not.toContain('eye.png');
+  });
+
   it('draws waveforms and map by default', async () => {
     const d = dir();
     const file = writeScenario(d, 'small.json', SMALL);

@@ -6,7 +6,10 @@ import { signalFunction } from '../../../sim/signals.js';
 import { hexToRgb, OKABE_ITO, THEME } from '../../../src/render/palette.js';
 import { encodePng, Surface } from '../../../src/render/surface.js';
 import type { EyeInput } from '../../../src/views/eye.js';
-import { drawEye, renderEye } from '../../../src/views/eye-plot.js';
+import { drawEye, eyeSubtitle, renderEye } from '../../../src/views/eye-plot.js';
+import { measureEye } from '../../../src/views/eye.js';
+import { colorBarTicks } from '../../../src/render/heatmap.js';
+import { viridis } from '../../../src/render/palette.js';
 
 const UI = 1e-9;
 const dt = 10e-12;
@@ -45,5 +48,36 @@ describe('eye plot', () => {
     expect(hits).toBeGreaterThan(0);
     // the encoded image is the surface
     expect(PNG.sync.read(encodePng(s)).width).toBe(1200);
+  });
+
+  it('never prints an eye height beside "eye closed": thresholds above the swing give "closed at the thresholds"', () => {
+    const closed = measureEye({ ...input, thresholds: { vih: 1.2, vil: 0.3 } });
+    expect(closed.open).toBe(false);
+    const text = eyeSubtitle('rx', closed);
+    expect(text).toMatch(/eye closed at the thresholds/);
+    expect(text).not.toMatch(/height/);
+    expect(eyeSubtitle('rx', measureEye(input))).toMatch(/eye height 1 V over the sampling window \(±10 % UI\), eye width/);
+  });
+
+  it('labels the density colour bar at whole hit counts only', () => {
+    const spec = { kind: 'sequential' as const, label: 'Windows', integer: true };
+    expect(colorBarTicks(1, 2, spec, 8).values).toEqual([1, 2]);
+    const many = colorBarTicks(1, 37, spec, 8);
+    expect(many.values.every(Number.isInteger)).toBe(true);
+    expect(many.labels.every((l) => /^\d+$/.test(l))).toBe(true);
+  });
+
+  it('draws a one-window eye in the darkest colour of the map, so it reads on the light background', () => {
+    // the first 3 UI of the pattern: bit 1's window (centred 1.6 UI in, ±1 UI) is the only complete one
+    const one: EyeInput = { signal, values: values.subarray(0, 301), dt };
+    const s = new Surface(1200, 700);
+    const { frame, eye } = drawEye(s, { x: 0, y: 0, w: 1200, h: 700 }, { title: 'Eye', probe: 'rx', input: one });
+    expect(eye.windows).toBe(1);
+    const dark = viridis(0).map(Math.round);
+    // somewhere on the column 0.6 UI right of the sampling instant, on the trace, the darkest colour
+    const x = Math.floor(frame.x.map(eye.samplingOffset + 0.6 * UI));
+    let found = false;
+    for (let y = frame.plot.y; y < frame.plot.y + frame.plot.h; y++) if (near(s.getPixel(x, y), dark, 2)) found = true;
+    expect(found).toBe(true);
   });
 });

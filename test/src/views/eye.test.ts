@@ -26,6 +26,7 @@ import { prbs } from '../../../sim/prbs.js';
 import { rampDuration } from '../../../sim/signals.js';
 import { simulate } from '../../../sim/simulate.js';
 import {
+  EYE_MIN_WINDOWS,
   eyeCoverageNote,
   eyeDensity,
   eyeInputOf,
@@ -170,6 +171,40 @@ describe('eye measurement on hand-built waveforms', () => {
     expect(eye.eyeHeight!).toBeCloseTo(-0.1, 12);
     expect(eye.open).toBe(false);
     expect(eye.eyeWidth).toBe(0);
+  });
+
+  it('takes the eye height over the sampling window: a dip inside it counts, one outside it does not (definition)', () => {
+    // The sampling instant of bit k is k·UI + UI/2 + (D_r + D_f)/4 = k·UI + 505 ps (ramps of 10 ps). Bit 4
+    // ("1") dips to 0.6 V from 540 to 560 ps into the bit: 35–55 ps after its sampling instant.
+    const v = waveform((w) => {
+      for (let i = 4 * perBit + 54; i <= 4 * perBit + 56; i++) w[i] = 0.6;
+    });
+    const wide = measureEye({ signal, values: v, dt, delay: 0, samplingWindow: 0.2 }); // ±100 ps
+    expect(wide.samplingWindow.width).toBeCloseTo(200e-12, 18);
+    expect(wide.lowestOne).toBeCloseTo(0.6, 12);
+    expect(wide.eyeHeight!).toBeCloseTo(0.6, 12);
+    const narrow = measureEye({ signal, values: v, dt, delay: 0, samplingWindow: 0.05 }); // ±25 ps
+    expect(narrow.eyeHeight!).toBeCloseTo(1, 12);
+    // the default window is the central fifth of the UI (common practice)
+    expect(measureEye({ signal, values: v, dt, delay: 0 }).samplingWindow.share).toBe(0.2);
+  });
+
+  it('warns when a threshold lies beyond the signal’s levels; such an eye is closed, whatever the gap between the traces', () => {
+    // a 0 … 1 V signal read with vih = 1.2 V: no "1" reaches vih
+    const eye = measureEye({ signal, values: waveform(), dt, delay: 0, thresholds: { vih: 1.2, vil: 0.3 } });
+    expect(eye.open).toBe(false);
+    expect(eye.eyeHeight!).toBeCloseTo(1, 12); // the gap between the 1s and 0s is still reported in the data
+    expect(eye.warnings.join()).toMatch(/vih 1\.2 V is above the signal's high level 1 V/);
+    expect(measureEye({ signal, values: waveform(), dt, delay: 0, thresholds: { vih: 0.7, vil: 0.3 } }).warnings).toEqual([]);
+  });
+
+  it('notes an eye of fewer than ten windows as too few to trust', () => {
+    // 16 bits of 1 ns hold 14 complete two-UI windows; the first 8 bits only 6
+    const short = waveform().subarray(0, 8 * perBit + 1);
+    const eye = measureEye({ signal, values: short, dt, delay: 0 });
+    expect(eye.windows).toBeLessThan(EYE_MIN_WINDOWS);
+    expect(eye.notes.windows).toMatch(/too few for an eye to trust/);
+    expect(measureEye({ signal, values: waveform(), dt, delay: 0 }).notes.windows).toBeUndefined();
   });
 
   it('a glitch across the threshold shortens the width to the time on the right side (definition)', () => {
