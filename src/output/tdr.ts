@@ -28,7 +28,7 @@ export function defaultTdrRise(net: Net): number {
 export interface TdrRunOptions {
   /** 10–90 % rise time (s); default defaultTdrRise(net). */
   rise?: number;
-  /** Reference impedance (Ω); default the first segment's Z0. */
+  /** Reference impedance (Ω); default 50 Ω (DEFAULT_TDR_Z0). */
   z0?: number;
   force?: boolean;
   limits?: Partial<RunLimits>;

@@ -16,21 +16,25 @@
 // Resolution: two discontinuities closer than half the step's 10–90 % rise time in round-trip time
 // merge, i.e. d_min = v·t_r/4 (HP 54753A user's guide, "TDR Fundamentals", rise time and distance
 // resolution).
-import { NetError } from '../../sim/errors.js';
+import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { Net } from '../../sim/model.js';
 import { probeTrace, type SimResult } from '../../sim/result.js';
 import { rampDuration, signalFunction } from '../../sim/signals.js';
+import type { Frame } from '../render/frame.js';
 import { drawLinePlot } from '../render/lineplot.js';
 import type { Marker } from '../render/marks.js';
 import { OKABE_ITO, THEME } from '../render/palette.js';
 import { encodePng, Surface, type Rect } from '../render/surface.js';
 import { formatSi } from '../render/ticks.js';
-import { drawTitleBlock } from './panels.js';
+import { drawTitleBlock, LabelPlacer } from './panels.js';
+
+/** Default reference impedance: 50 Ω, what TDR instruments and their cables use (common practice). */
+export const DEFAULT_TDR_Z0 = 50;
 
 export interface TdrOptions {
   /** 10–90 % rise time of the step (s). */
   rise: number;
-  /** Reference impedance = source resistance (Ω); default: the first line segment's Z0. */
+  /** Reference impedance = source resistance (Ω); default DEFAULT_TDR_Z0 (50 Ω). */
   z0?: number;
   /** Step amplitude (V, default 1). */
   amplitude?: number;
@@ -40,13 +44,16 @@ export interface TdrOptions {
 export const TDR_PROBE = 'tdr';
 
 function segmentsOf(net: Net) {
-  const out: { name: string; from: number; to: number; z0: number; delay: number; velocity: number }[] = [];
+  const out: { name: string; from: number; to: number; z0: number; delay: number; velocity: number; resistance: number; lossy: boolean }[] = [];
   let x = 0;
   for (const it of net.route) {
     if (it.kind !== 'line') continue;
     if (it.length > 0) {
       const tpd = Math.sqrt(it.line.l * it.line.c);
-      out.push({ name: it.name, from: x, to: x + it.length, z0: Math.sqrt(it.line.l / it.line.c), delay: it.length * tpd, velocity: 1 / tpd });
+      const l = it.line;
+      const lossy = l.r > 0 || l.g > 0 || !!(l.wideband || l.series?.length || l.shunt?.length);
+      // Z0 as every other place prints it (sim/lines/impedance.ts); the velocity is the wavefront's
+      out.push({ name: it.name, from: x, to: x + it.length, z0: lineImpedance(l).z0, delay: it.length * tpd, velocity: 1 / tpd, resistance: l.r, lossy });
     }
     x += it.length;
   }
@@ -55,17 +62,14 @@ function segmentsOf(net: Net) {
 
 /**
  * The TDR set-up of a net: the driver replaced by a step of the given rise time from a source whose
- * resistance matches the reference impedance (the first segment's Z0 unless `z0` is given); the route
+ * resistance matches the reference impedance (50 Ω unless `z0` is given); the route
  * and receiver as they are; one probe at the driver pin; run long enough for the wave to come back
  * from the receiver, plus a margin.
  */
 export function tdrNet(net: Net, opts: TdrOptions): Net {
   if (!(opts.rise > 0) || !Number.isFinite(opts.rise)) throw new RangeError(`tdrNet: rise must be a positive time, got ${opts.rise}`);
   const segs = segmentsOf(net);
-  const z0 = opts.z0 ?? segs[0]?.z0;
-  if (z0 === undefined) {
-    throw new NetError([{ path: 'route', message: 'a TDR needs a reference impedance: the route has no line segment, so give one (--z0)' }]);
-  }
+  const z0 = opts.z0 ?? DEFAULT_TDR_Z0;
   if (!(z0 > 0) || !Number.isFinite(z0)) throw new RangeError(`tdrNet: z0 must be a positive resistance, got ${z0}`);
   const ramp = rampDuration(opts.rise);
   const start = ramp;
@@ -91,6 +95,9 @@ export interface TdrSegment {
   timeTo: number;
   /** v·t_r/4 in this segment (m). */
   resolution: number;
+  /** R′ (Ω/m; the DC value of a frequency-dependent line), and whether the line has any loss. */
+  resistance: number;
+  lossy: boolean;
 }
 
 export interface TdrPlace {
@@ -264,14 +271,111 @@ export interface TdrRenderInput {
 
 const TRACE = { color: OKABE_ITO.blue, width: 2, dash: [] as number[] };
 
+/**
+ * The reading at the first sample at or past distance `x` inside segment `sg`'s first pass (NaN when
+ * none): what the profile shows there before later reflections arrive.
+ */
+function readingAt(p: TdrProfile, sg: TdrSegment, x: number): number {
+  for (let i = 0; i < p.time.length; i++) {
+    if (p.time[i] < sg.timeFrom) continue;
+    if (p.time[i] > sg.timeTo) break;
+    if (p.distance[i] >= x) return p.impedance[i];
+  }
+  return NaN;
+}
+
+/**
+ * The note a lossy route gets on the plot and in the terminal. A line with series loss reads higher the
+ * farther the step has gone: to first order in R′x/Z0 the reading at distance x is Z0 + R′·x for a
+ * constant R′ (from the low-loss expansion Z0(s) = √((R′ + sL′)/(sC′)) ≈ Z0·(1 + R′/(2sL′)), Pozar,
+ * Microwave Engineering, §2.7), more where skin effect raises R′ at the step's frequencies. The note
+ * gives each lossy segment's reading near its two ends, read from the profile itself.
+ */
+export function tdrLossNote(p: TdrProfile): string | null {
+  const lossy = p.segments.filter((sg) => sg.lossy);
+  if (!lossy.length) return null;
+  const ohm = (z: number) => formatSi(z, 'Ω', 3);
+  const parts = lossy.map((sg) => {
+    const len = sg.to - sg.from;
+    const inset = Math.min(0.45 * len, Math.max(0.05 * len, 2 * sg.resolution));
+    const a = readingAt(p, sg, sg.from + inset), b = readingAt(p, sg, sg.to - inset);
+    const read = Number.isFinite(a) && Number.isFinite(b) ? ` reads ${ohm(a)} near its start and ${ohm(b)} near its end` : '';
+    return `'${sg.name}'${read} (R′ℓ = ${ohm(sg.resistance * len)} at DC)`;
+  });
+  return (
+    `Loss tilts the reading: a line with series loss reads higher the farther the step has gone — about Z0 + R′·x at distance x, ` +
+    `more where skin effect raises R′ — so a slope along a lossy line is the loss, not a change of the line: ${parts.join('; ')}.`
+  );
+}
+
+/** Pixel rectangles a drawn curve passes through, per column: for keeping labels off the curve. */
+class CurveMask {
+  /** The labels placed clear of the curve. */
+  readonly labels: { text: string; rect: Rect }[] = [];
+  private readonly lo: Float64Array;
+  private readonly hi: Float64Array;
+  constructor(private readonly f: Frame, xs: ArrayLike<number>, ys: ArrayLike<number>) {
+    const { plot } = f;
+    this.lo = new Float64Array(plot.w).fill(Infinity);
+    this.hi = new Float64Array(plot.w).fill(-Infinity);
+    let prev: [number, number] | null = null;
+    for (let i = 0; i < xs.length; i++) {
+      const y = ys[i];
+      if (!Number.isFinite(y)) {
+        prev = null;
+        continue;
+      }
+      const px = f.x.map(xs[i]) - plot.x;
+      const py = Math.min(plot.y + plot.h, Math.max(plot.y, f.y.map(y)));
+      // join consecutive points so steep edges mark every row they cross
+      const [ax, ay] = prev ?? [px, py];
+      for (let c = Math.max(0, Math.floor(Math.min(ax, px)) - 1); c <= Math.min(plot.w - 1, Math.ceil(Math.max(ax, px)) + 1); c++) {
+        this.lo[c] = Math.min(this.lo[c], ay, py);
+        this.hi[c] = Math.max(this.hi[c], ay, py);
+      }
+      prev = [px, py];
+    }
+  }
+  /** True when the rectangle (surface pixels, with a margin) stays clear of the curve. */
+  clear(r: Rect, margin = 3): boolean {
+    const { plot } = this.f;
+    for (let x = Math.floor(r.x - margin); x <= Math.ceil(r.x + r.w + margin); x++) {
+      const c = x - plot.x;
+      if (c < 0 || c >= plot.w) continue;
+      if (this.hi[c] >= r.y - margin && this.lo[c] <= r.y + r.h + margin) return false;
+    }
+    return true;
+  }
+}
+
+/** Draws `text` in a light box at the first candidate position (top-left corners) clear of the curve and of earlier labels. */
+function placeLabel(s: Surface, mask: CurveMask, placer: LabelPlacer, text: string, candidates: readonly [number, number][], color: string = THEME.mutedText): Rect | null {
+  const m = s.measureText(text, 11);
+  const w = m.width + 6, h = m.ascent + m.descent + 2;
+  for (const [x, y] of candidates) {
+    const r: Rect = { x, y, w, h };
+    if (!mask.clear(r) || !placer.tryPlace(r)) continue;
+    s.fillRect(r.x, r.y, r.w, r.h, THEME.panel, 0.85);
+    s.text(text, r.x + 3, r.y + 1, { size: 11, color, align: 'left', baseline: 'top' });
+    mask.labels.push({ text, rect: r });
+    return r;
+  }
+  return null;
+}
+
 /** Two panels: impedance against distance (top) and against round-trip time (bottom), places marked. */
-export function drawTdr(s: Surface, area: Rect, input: TdrRenderInput): { distance: ReturnType<typeof drawLinePlot>; time: ReturnType<typeof drawLinePlot> } {
+export function drawTdr(
+  s: Surface,
+  area: Rect,
+  input: TdrRenderInput,
+): { distance: Frame; time: Frame; lossNote: string | null; labels: { panel: 'distance' | 'time'; text: string; rect: Rect }[] } {
   const p = input.profile;
   const pad = 16;
   const first = p.segments[0];
   const resText = first
     ? `Resolution ≈ v·t_r/4 = ${formatSi(p.resolution, 'm', 2)} in '${first.name}' (discontinuities closer than this merge).`
     : '';
+  const lossNote = tdrLossNote(p);
   const titleH =
     pad +
     drawTitleBlock(
@@ -280,7 +384,8 @@ export function drawTdr(s: Surface, area: Rect, input: TdrRenderInput): { distan
       input.title,
       `Matched step source: ${formatSi(p.rise, 's', 3)} (10–90 %), R_S = Z_ref = ${formatSi(p.zRef, 'Ω', 3)}. ` +
         `Z = Z_ref·(1 + ρ)/(1 − ρ), ρ = reflected / incident wave at the driver pin; distance from the round-trip time at each segment's own velocity; later readings include multiple reflections of earlier places. ` +
-        resText,
+        resText +
+        (lossNote ? `\n${lossNote}` : ''),
     );
   const yDomain = tdrImpedanceDomain(p);
   const shownTime = Math.min(p.time.length ? p.time[p.time.length - 1] : 0, p.routeTime + Math.max(0.12 * p.routeTime, 10 * p.rise));
@@ -295,61 +400,79 @@ export function drawTdr(s: Surface, area: Rect, input: TdrRenderInput): { distan
       color: pl.kind === 'junction' ? '#5b6472' : '#2b2f38',
       dash: pl.kind === 'junction' ? [5, 4] : [],
     }));
-  const refMarker: Marker = { axis: 'y', at: p.zRef, label: `Z_ref ${formatSi(p.zRef, 'Ω', 3)}`, color: THEME.mutedText, dash: [2, 3] };
+  const refMarker: Marker = { axis: 'y', at: p.zRef, color: THEME.mutedText, dash: [2, 3] };
   const bodyH = area.h - titleH;
   const topArea: Rect = { x: area.x, y: area.y + titleH, w: area.w, h: Math.round(bodyH * 0.56) };
   const botArea: Rect = { x: area.x, y: topArea.y + topArea.h, w: area.w, h: bodyH - topArea.h };
-  const distance = drawLinePlot(s, topArea, {
-    title: 'Impedance along the route',
-    x: { label: 'Distance from the driver pin', unit: 'm', domain: [0, shownDist] },
-    y: { label: 'Impedance', unit: 'Ω', domain: yDomain },
-    series: [{ name: 'Z', values: p.impedance, xs: p.distance, style: TRACE, hideInLegend: true }],
-    markers: [...placeMarkers((pl) => pl.distance), refMarker],
-    legend: 'none',
-  });
-  labelSegments(s, distance, p.segments, (sg) => [sg.from, sg.to]);
-  shadeBeyond(s, distance, p.routeLength);
-  const time = drawLinePlot(s, botArea, {
-    title: 'Against round-trip time',
-    x: { label: 'Round-trip time', unit: 's', domain: [0, shownTime] },
-    y: { label: 'Impedance', unit: 'Ω', domain: yDomain },
-    series: [{ name: 'Z', values: p.impedance, xs: p.time, style: TRACE, hideInLegend: true }],
-    markers: [...placeMarkers((pl) => pl.time), refMarker],
-    legend: 'none',
-  });
-  labelSegments(s, time, p.segments, (sg) => [sg.timeFrom, sg.timeTo]);
-  shadeBeyond(s, time, p.routeTime);
-  return { distance, time };
+  const labels: { panel: 'distance' | 'time'; text: string; rect: Rect }[] = [];
+  const panel = (a: Rect, title: string, x: { label: string; unit: string; domain: [number, number] }, xs: Float64Array, at: (pl: TdrPlace) => number, span: (sg: TdrSegment) => [number, number], end: number): Frame => {
+    const f = drawLinePlot(s, a, {
+      title,
+      x,
+      y: { label: 'Impedance', unit: 'Ω', domain: yDomain },
+      series: [{ name: 'Z', values: p.impedance, xs, style: TRACE, hideInLegend: true }],
+      markers: [...placeMarkers(at), refMarker],
+      legend: 'none',
+    });
+    const mask = new CurveMask(f, xs, p.impedance);
+    const placer = new LabelPlacer({ x: f.plot.x + 1, y: f.plot.y + 1, w: f.plot.w - 2, h: f.plot.h - 2 });
+    shadeBeyond(s, f, end, mask, placer);
+    labelReference(s, f, p.zRef, mask, placer);
+    labelSegments(s, f, p.segments, span, mask, placer);
+    labels.push(...mask.labels.map((l) => ({ panel: xs === p.distance ? ('distance' as const) : ('time' as const), ...l })));
+    return f;
+  };
+  const distance = panel(topArea, 'Impedance along the route', { label: 'Distance from the driver pin', unit: 'm', domain: [0, shownDist] }, p.distance, (pl) => pl.distance, (sg) => [sg.from, sg.to], p.routeLength);
+  const time = panel(botArea, 'Against round-trip time', { label: 'Round-trip time', unit: 's', domain: [0, shownTime] }, p.time, (pl) => pl.time, (sg) => [sg.timeFrom, sg.timeTo], p.routeTime);
+  return { distance, time, lossNote, labels };
 }
 
-/** Each segment's name and Z0 along the bottom of the plot, centred on its span, where it fits. */
-function labelSegments(s: Surface, f: ReturnType<typeof drawLinePlot>, segs: readonly TdrSegment[], span: (sg: TdrSegment) => [number, number]): void {
+/** "Z_ref 50 Ω" beside its dotted line, at the right end or the left, above or below, where the curve is not. */
+function labelReference(s: Surface, f: Frame, zRef: number, mask: CurveMask, placer: LabelPlacer): void {
+  const { plot } = f;
+  const y = f.y.map(zRef);
+  if (y < plot.y || y > plot.y + plot.h) return;
+  const text = `Z_ref ${formatSi(zRef, 'Ω', 3)}`;
+  const m = s.measureText(text, 11);
+  const w = m.width + 6, h = m.ascent + m.descent + 2;
+  const right = plot.x + plot.w - w - 4, left = plot.x + 4;
+  const candidates: [number, number][] = [];
+  for (const x of [right, left, plot.x + plot.w / 2 - w / 2]) candidates.push([x, y - h - 2], [x, y + 3]);
+  placeLabel(s, mask, placer, text, candidates);
+}
+
+/** Each segment's name and Z0 inside its span, at the bottom of the plot or the top, where the curve is not. */
+function labelSegments(s: Surface, f: Frame, segs: readonly TdrSegment[], span: (sg: TdrSegment) => [number, number], mask: CurveMask, placer: LabelPlacer): void {
   const { plot } = f;
   for (const sg of segs) {
     const [a, b] = span(sg);
     const x0 = Math.max(plot.x, f.x.map(a)), x1 = Math.min(plot.x + plot.w - 1, f.x.map(b));
     for (const text of [`${sg.name} · ${formatSi(sg.z0, 'Ω', 3)}`, sg.name]) {
-      const w = s.measureText(text, 11).width;
-      if (w + 8 > x1 - x0) continue;
       const m = s.measureText(text, 11);
-      const xc = (x0 + x1) / 2, yb = plot.y + plot.h - 6;
-      s.fillRect(xc - w / 2 - 3, yb - m.ascent - m.descent - 1, w + 6, m.ascent + m.descent + 2, THEME.panel, 0.85);
-      s.text(text, xc, yb, { size: 11, color: THEME.mutedText, align: 'center', baseline: 'bottom' });
-      break;
+      const w = m.width + 6, h = m.ascent + m.descent + 2;
+      if (w + 4 > x1 - x0) continue;
+      const xs = [(x0 + x1) / 2 - w / 2, x0 + 2, x1 - w - 2];
+      const candidates: [number, number][] = [];
+      for (const y of [plot.y + plot.h - h - 4, plot.y + 4, plot.y + plot.h / 2 - h / 2]) for (const x of xs) candidates.push([x, y]);
+      if (placeLabel(s, mask, placer, text, candidates)) break;
     }
   }
 }
 
-/** Grey veil over the part of a plot past the receiver, with a note. */
-function shadeBeyond(s: Surface, f: ReturnType<typeof drawLinePlot>, at: number): void {
+/** Grey veil over the part of a plot past the receiver, with a note where the curve leaves room. */
+function shadeBeyond(s: Surface, f: Frame, at: number, mask: CurveMask, placer: LabelPlacer): void {
   const { plot } = f;
   const x0 = Math.ceil(f.x.map(at)) + 1;
   const x1 = plot.x + plot.w - 1;
   if (x1 - x0 < 4) return;
   s.fillRect(x0, plot.y + 1, x1 - x0, plot.h - 2, '#8a93a3', 0.14);
   const text = 'past the receiver';
-  const w = s.measureText(text, 11).width;
-  if (x1 - x0 > w + 10) s.text(text, x0 + 6, plot.y + 6, { size: 11, color: THEME.mutedText, align: 'left', baseline: 'top' });
+  const m = s.measureText(text, 11);
+  const w = m.width + 6, h = m.ascent + m.descent + 2;
+  if (x1 - x0 < w + 6) return;
+  const candidates: [number, number][] = [];
+  for (const y of [plot.y + 4, plot.y + plot.h - h - 4, plot.y + plot.h / 2 - h / 2]) candidates.push([x0 + 4, y], [x1 - w - 4, y]);
+  placeLabel(s, mask, placer, text, candidates);
 }
 
 /** The TDR view as PNG bytes (default 1200 × 900). */

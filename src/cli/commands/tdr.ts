@@ -3,7 +3,7 @@ import type { Command } from 'commander';
 import { join } from 'node:path';
 import { formatProblem } from '../../scenario/problems.js';
 import { parseQuantity, POSITIVE, formatSI } from '../../units.js';
-import { segmentReadings } from '../../views/tdr.js';
+import { DEFAULT_TDR_Z0, segmentReadings, tdrLossNote } from '../../views/tdr.js';
 import { DEFAULT_TDR_RISE, runTdrFile, type TdrReport } from '../../output/tdr.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
@@ -25,6 +25,11 @@ function option(value: string | undefined, dim: 'time' | 'resistance', flag: str
   return r.value;
 }
 
+/** Default output folder: out/<scenario name>-tdr (apart from the run's folder, as `eye` and `sweep` do). */
+export function tdrOutputFolder(file: string, out: string | undefined): string {
+  return out ?? join('out', `${scenarioName(file)}-tdr`);
+}
+
 /** The text printed after a TDR run. */
 export function formatTdrReport(r: TdrReport): string {
   const si = (v: number, u: string) => formatSI(v, u, 4);
@@ -36,6 +41,7 @@ export function formatTdrReport(r: TdrReport): string {
     `  step        ${si(p.rise, 's')} (10–90 %) from ${si(p.zRef, 'Ω')} (the reference impedance)`,
     `  resolution  ${p.segments.length ? `${si(p.resolution, 'm')} in '${p.segments[0].name}' (v·t_r/4)` : '—'}`,
     ...table([['', 'Z0', 'reads'], ...rows], ['l', 'r', 'r']).map((l, i) => (i === 0 ? '  segments    ' : '              ') + l),
+    ...(tdrLossNote(p) ? [`  note        ${tdrLossNote(p)}`] : []),
     `  wrote       ${r.files.join(', ')}`,
   ];
   return lines.join('\n') + '\n';
@@ -54,7 +60,7 @@ export async function tdrCommand(file: string, opts: TdrCommandOptions, ctx: Cli
   }
   let release: (() => void) | undefined;
   try {
-    const report = await runTdrFile(file, opts.out ?? join('out', scenarioName(file)), {
+    const report = await runTdrFile(file, tdrOutputFolder(file, opts.out), {
       rise,
       z0,
       force: opts.force,
@@ -88,8 +94,8 @@ export function registerTdrCommand(program: Command, ctx: CliContext): void {
     )
     .argument('<scenario>', 'scenario file (JSON or YAML)')
     .option('-r, --rise <time>', `10–90 % rise time of the step (default ${DEFAULT_TDR_RISE * 1e12} ps, or the route's one-way delay / 400 when that is longer)`)
-    .option('-z, --z0 <resistance>', "reference impedance and source resistance (default: the first line segment's Z0)")
-    .option('-o, --out <dir>', 'output folder (default out/<scenario name>)')
+    .option('-z, --z0 <resistance>', `reference impedance and source resistance (default ${DEFAULT_TDR_Z0} Ω, as TDR instruments use)`)
+    .option('-o, --out <dir>', 'output folder (default out/<scenario name>-tdr)')
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')
     .action(async (file: string, opts: TdrCommandOptions) => {

@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
+import { tdrOutputFolder } from '../../../src/cli/commands/tdr.js';
 import { BAD_TEXT, HUGE, SMALL, writeScenario, collectOutput, tempDirs } from './fixtures.js';
 
 const collect = collectOutput;
@@ -35,6 +36,11 @@ describe('ladderwave tdr', () => {
     expect(io.stdout).toMatch(/resolution {2}\S+ mm in 'trace' \(v·t_r\/4\)/);
     expect(io.stdout).toMatch(/trace +50 Ω +50 Ω/);
     expect(io.stdout).toContain(join(out, 'tdr.png'));
+  });
+
+  it('writes into its own folder by default, out/<scenario>-tdr, apart from the run’s (as eye and sweep do)', () => {
+    expect(tdrOutputFolder(join('nets', 'clock.json'), undefined)).toBe(join('out', 'clock-tdr'));
+    expect(tdrOutputFolder('clock.json', 'elsewhere')).toBe('elsewhere');
   });
 
   it('--quiet prints nothing; --z0 sets the reference', async () => {
