@@ -13,9 +13,8 @@ function section(label: string, lines: string[], labelWidth: number): string[] {
 
 const si = (value: number, unit: string) => formatSI(value, unit, 4);
 
-/** The checks' verdict ("2 of 3 FAIL", "all 3 PASS") and each failing check, probe, metric and why; none: nothing. */
+/** The checks' verdict ("2 of 3 FAIL", "all 3 PASS") and each failing check: probe, metric, limit and why. */
 export function checkLines(checks: readonly CheckResult[]): string[] {
-  if (checks.length === 0) return ['none in the scenario'];
   const failed = checks.filter((c) => !c.pass);
   if (failed.length === 0) return [`all ${checks.length} PASS`];
   return [`${failed.length} of ${checks.length} FAIL`, ...failed.map((c) => `FAIL ${c.probe} ${c.metric} ${c.limit}: ${c.message}`)];
@@ -53,7 +52,7 @@ export function formatRunReport(report: RunReport): string {
     s.crossing50.time === null ? '' : si(s.crossing50.time, 's'),
   ]);
   lines.push(...section('probes', table([['', 'min', 'max', 'final', '50 % at'], ...probeRows], ['l', 'r', 'r', 'r', 'r']), lw));
-  lines.push(...section('checks', checkLines(report.checks), lw));
+  if (report.checks.length > 0) lines.push(...section('checks', checkLines(report.checks), lw));
   lines.push(...section('wrote', report.files, lw));
   return lines.join('\n') + '\n';
 }

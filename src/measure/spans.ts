@@ -30,15 +30,24 @@ export interface EdgeSpan {
 }
 
 /**
- * End of the state that follows an edge: the last sample before the next transition's monotone
- * departure. Walks back from `j` over samples that are short of the state level and no further from
- * it than their predecessor, but not before `lo`.
+ * End of the state that follows an edge: the last sample before the next transition's departure.
+ * Walks back from `j`: when a next transition is known to follow, first over samples outside the
+ * state zone (short of `zoneEdge`: whatever the waveform did after it last left the zone belongs to
+ * that transition, even when a reflection still arriving from before makes it wobble); then over
+ * samples that are short of the state level and no further from it than their predecessor (within
+ * `tol`, so that rounding on a plateau does not stop the walk); never before `lo`.
  */
-export function stateEndBefore(tr: Trace, j: number, lo: number, dir: Dir, level: number): number {
+export function stateEndBefore(tr: Trace, j: number, lo: number, dir: Dir, level: number, zoneEdge: number | null, tol = 0): number {
   const v = tr.v;
   let s = j;
-  while (s > lo && dir * v[s]! < dir * level && dir * v[s]! <= dir * v[s - 1]!) s--;
+  if (zoneEdge !== null) while (s > lo && dir * v[s]! < dir * zoneEdge) s--;
+  while (s > lo && dir * v[s]! < dir * level && dir * v[s]! <= dir * v[s - 1]! + tol) s--;
   return s;
+}
+
+/** Rounding allowance on plateaus: 1 ppm of the amplitude. */
+export function plateauTolerance(levels: Pick<StateLevels, 'low' | 'high'>): number {
+  return 1e-6 * Math.abs(levels.high - levels.low);
 }
 
 /** The span of every transition (in order), with the two state levels as the edges' levels. */
@@ -47,6 +56,7 @@ export function edgeSpans(tr: Trace, transitions: readonly Transition[], levels:
   const n = tr.n;
   // Every edge passes the 50 % level by construction, so the crossing is always found.
   const c50s = transitions.map((e) => firstCrossing(tr, e.o, e.g >= 0 ? e.g : n - 1, ref.p50, e.dir));
+  const tol = plateauTolerance(levels);
   return transitions.map((e, k) => {
     const next = transitions[k + 1];
     const rising = e.dir === 1;
@@ -58,7 +68,11 @@ export function edgeSpans(tr: Trace, transitions: readonly Transition[], levels:
     const endsOutside = !next && e.g >= 0 && e.dir * tr.v[n - 1]! < e.dir * endZone;
     let crossEnd = next ? next.o : n - 1;
     if (endsOutside) while (crossEnd > e.g && e.dir * tr.v[crossEnd]! < e.dir * endZone) crossEnd--;
-    const stateEnd = next ? stateEndBefore(tr, jEnd, Math.min(jEnd, Math.max(e.g, 0)), e.dir, toLevel) : endsOutside ? stateEndBefore(tr, n - 1, e.g, e.dir, toLevel) : n - 1;
+    const stateEnd = next
+      ? stateEndBefore(tr, jEnd, Math.min(jEnd, Math.max(e.g, 0)), e.dir, toLevel, endZone, tol)
+      : endsOutside
+        ? stateEndBefore(tr, n - 1, e.g, e.dir, toLevel, null, tol)
+        : n - 1;
     return {
       k,
       dir: e.dir,
