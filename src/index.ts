@@ -11,6 +11,7 @@ export { NetError, RunRefused, type NetProblem } from '../sim/errors.js';
 export { DEFAULT_LIMITS, type RunLimits } from '../sim/limits.js';
 export type { LineRLGC, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
 export type { Discretization, ProbeRecord, SegmentPlan, SimResult } from '../sim/result.js';
+export { settledProbeLevels, type SettledLevels } from '../sim/settled.js';
 
 // Outputs.
 export {
@@ -28,7 +29,8 @@ export {
 } from './output/run.js';
 export { csvChunks, csvHeader, probeRecordToCsv, writeCsv } from './output/csv.js';
 export { probeTrace, probeTraces } from '../sim/result.js';
-export { crossing50, probeStats, type Crossing50, type ProbeStats } from './output/crossing.js';
+export { crossing50, probeStats, type Crossing50, type CrossingLevel, type ProbeStats } from './output/crossing.js';
+export { crossingLevels, netSettledLevels, type NetSettledLevels, type SettledPair } from './output/net-levels.js';
 export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
 export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';
 export { toolInfo, type ToolInfo } from './output/tool.js';
