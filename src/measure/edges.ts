@@ -9,7 +9,7 @@ import { crossingCounts, monotonicity, referenceInstants, thresholdCrossingIndex
 import { DEFAULT_SETTLE_BAND, type BandSpec, type EdgeAnalysis, type EdgeMeasurement, type EdgeOptions, type EdgeReasons, type Runt } from './edge-types.js';
 import { heldExtreme, ringbackDepth, ringbackMargin, thresholdName } from './ringback.js';
 import { settledFromStart, settlingCutOff, settlingTime } from './settling.js';
-import { edgeSpans, plateauTolerance, stateEndBefore, type EdgeSpan } from './spans.js';
+import { edgeSpans, stateEndBefore, type EdgeSpan } from './spans.js';
 import { findTransitions, initialState } from './transitions.js';
 import { makeTrace, type Trace } from './trace.js';
 
@@ -101,7 +101,7 @@ function initialExtreme(tr: Trace, levels: StateLevels, spans: readonly EdgeSpan
   const level = start.state === 'high' ? levels.high : levels.low;
   const zoneEdge = start.state === 'high' ? levels.reference.p90 : levels.reference.p10;
   const jEnd = spans.length > 0 ? Math.floor(spans[0]!.c50) : tr.n - 1;
-  const end = spans.length > 0 || dir * tr.v[tr.n - 1]! < dir * zoneEdge ? stateEndBefore(tr, jEnd, start.first, dir, level, spans.length > 0 ? zoneEdge : null, plateauTolerance(levels)) : tr.n - 1;
+  const end = spans.length > 0 || dir * tr.v[tr.n - 1]! < dir * zoneEdge ? stateEndBefore(tr, jEnd, start.first, dir, level, spans.length > 0 ? zoneEdge : null) : tr.n - 1;
   return heldExtreme(tr, start.first, end, dir).value;
 }
 

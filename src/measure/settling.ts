@@ -40,7 +40,7 @@ export function settlingCutOff(band: BandSpec, amplitude: number): SettlingResul
  */
 export function settledFromStart(tr: Trace, s: EdgeSpan, band: BandSpec, amplitude: number): boolean {
   const bandV = bandVolts(band, amplitude);
-  const end = stateEndBefore(tr, s.o, 0, -s.dir as Dir, s.fromLevel, null, 1e-6 * Math.abs(amplitude));
+  const end = stateEndBefore(tr, s.o, 0, -s.dir as Dir, s.fromLevel, null);
   for (let i = 0; i <= end; i++) if (Math.abs(tr.v[i]! - s.fromLevel) > bandV) return false;
   return true;
 }

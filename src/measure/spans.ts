@@ -34,20 +34,15 @@ export interface EdgeSpan {
  * Walks back from `j`: when a next transition is known to follow, first over samples outside the
  * state zone (short of `zoneEdge`: whatever the waveform did after it last left the zone belongs to
  * that transition, even when a reflection still arriving from before makes it wobble); then over
- * samples that are short of the state level and no further from it than their predecessor (within
- * `tol`, so that rounding on a plateau does not stop the walk); never before `lo`.
+ * samples that are short of the state level and no further from it than their predecessor (the
+ * departure's monotone start); never before `lo`.
  */
-export function stateEndBefore(tr: Trace, j: number, lo: number, dir: Dir, level: number, zoneEdge: number | null, tol = 0): number {
+export function stateEndBefore(tr: Trace, j: number, lo: number, dir: Dir, level: number, zoneEdge: number | null): number {
   const v = tr.v;
   let s = j;
   if (zoneEdge !== null) while (s > lo && dir * v[s]! < dir * zoneEdge) s--;
-  while (s > lo && dir * v[s]! < dir * level && dir * v[s]! <= dir * v[s - 1]! + tol) s--;
+  while (s > lo && dir * v[s]! < dir * level && dir * v[s]! <= dir * v[s - 1]!) s--;
   return s;
-}
-
-/** Rounding allowance on plateaus: 1 ppm of the amplitude. */
-export function plateauTolerance(levels: Pick<StateLevels, 'low' | 'high'>): number {
-  return 1e-6 * Math.abs(levels.high - levels.low);
 }
 
 /** The span of every transition (in order), with the two state levels as the edges' levels. */
@@ -56,7 +51,6 @@ export function edgeSpans(tr: Trace, transitions: readonly Transition[], levels:
   const n = tr.n;
   // Every edge passes the 50 % level by construction, so the crossing is always found.
   const c50s = transitions.map((e) => firstCrossing(tr, e.o, e.g >= 0 ? e.g : n - 1, ref.p50, e.dir));
-  const tol = plateauTolerance(levels);
   return transitions.map((e, k) => {
     const next = transitions[k + 1];
     const rising = e.dir === 1;
@@ -69,9 +63,9 @@ export function edgeSpans(tr: Trace, transitions: readonly Transition[], levels:
     let crossEnd = next ? next.o : n - 1;
     if (endsOutside) while (crossEnd > e.g && e.dir * tr.v[crossEnd]! < e.dir * endZone) crossEnd--;
     const stateEnd = next
-      ? stateEndBefore(tr, jEnd, Math.min(jEnd, Math.max(e.g, 0)), e.dir, toLevel, endZone, tol)
+      ? stateEndBefore(tr, jEnd, Math.min(jEnd, Math.max(e.g, 0)), e.dir, toLevel, endZone)
       : endsOutside
-        ? stateEndBefore(tr, n - 1, e.g, e.dir, toLevel, null, tol)
+        ? stateEndBefore(tr, n - 1, e.g, e.dir, toLevel, null)
         : n - 1;
     return {
       k,
