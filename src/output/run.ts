@@ -78,6 +78,8 @@ export interface RunOptions extends SimulateOptions {
   frames?: number;
   /** Also write report.html, one self-contained page with the views and the numbers. */
   report?: boolean;
+  /** Also write explore.html, the interactive page (src/explore, loaded only then). */
+  explore?: boolean;
   /** The eye view's probe, thresholds and sampling phase. */
   eye?: EyeViewOptions;
 }
@@ -101,6 +103,8 @@ export interface RunReport {
   checks: CheckResult[];
   /** Wall-clock seconds spent in the simulation proper, and in the whole call. */
   wallTime: { simulate: number; total: number };
+  /** The explore page's data (with `explore`): a watch server serves it again with its own additions. */
+  exploreData?: import('../explore/payload.js').PageData;
 }
 
 export interface RunOutputs {
@@ -255,7 +259,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   // The bounce view shows the driver pin and the receiver: simulate them even when no probe is there.
   const views = plan.views.includes('bounce') ? await import('../views/bounce.js') : undefined;
   const simNet = views ? views.withEndProbes(net) : net;
-  const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap ? {} : undefined });
+  const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap || options.explore ? {} : undefined });
   const simSeconds = (performance.now() - t1) / 1000;
   const record = selectProbes(result.record, net.probes.map((p) => p.name));
   const userResult: SimResult = { ...result, record };
@@ -315,6 +319,12 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     });
     reportFiles.push({ path: REPORT_FILE, data: html });
   }
+  let exploreData: RunReport['exploreData'];
+  if (options.explore) {
+    const { runPageData, explorePage, EXPLORE_FILE } = await import('../explore/index.js');
+    exploreData = runPageData({ net, result: { ...userResult, routeMap: result.routeMap }, summary: JSON.parse(summaryJson) });
+    reportFiles.push({ path: EXPLORE_FILE, data: await explorePage(exploreData) });
+  }
 
   options.onPhase?.('write');
   const written = await writeRunFiles(outDir, { title: net.title, result: userResult, summary }, [...files, ...frameFiles, ...reportFiles], summaryJson);
@@ -332,5 +342,6 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
     framesSkipped: plan.framesSkipped,
     checks: measured.results,
     wallTime: { simulate: simSeconds, total: (performance.now() - t0) / 1000 },
+    ...(exploreData ? { exploreData } : {}),
   };
 }

@@ -1,4 +1,4 @@
-// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report]`
+// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report] [--explore]`
 import type { Command } from 'commander';
 import { basename, extname, join, resolve } from 'node:path';
 import { runScenarioFile } from '../../index.js';
@@ -24,6 +24,8 @@ export interface RunCommandOptions {
   report?: boolean;
   /** Print the check verdicts but exit 0 when a check fails. */
   ignoreChecks?: boolean;
+  /** Also write explore.html, the interactive page. */
+  explore?: boolean;
 }
 
 /** The views and frame count asked for on the command line; throws UsageError on a bad value. */
@@ -87,6 +89,7 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
         views: chosen.views,
         frames: chosen.frames,
         report: opts.report,
+        explore: opts.explore,
         onPhase: (phase) => {
           if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
         },
@@ -142,6 +145,7 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('--frames <n>', 'also write N PNG frames of the voltage along the route to frames/')
     .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')
     .option('--ignore-checks', 'print the check verdicts but exit 0 even when a check fails')
+    .option('--explore', 'also write explore.html: an interactive page (zoom, cursors, the voltage along the route at any instant, clickable measurements); opens offline in any browser')
     .action(async (files: string[], opts: RunCommandOptions) => {
       ctx.exitCode = await runCommand(files, opts, ctx);
     });

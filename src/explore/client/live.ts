@@ -1,0 +1,42 @@
+// Watch mode: the page served by `ladderwave run --watch` listens to its server. When a run finishes
+// the page reloads; when the saved scenario has problems, they are listed at the top of the page,
+// over the last good result, until a good save.
+import type { LiveData, LiveProblem } from '../payload.js';
+import { el, replaceChildren } from './dom.js';
+
+function problemList(problems: LiveProblem[], failedAt: number | null): HTMLElement[] {
+  const when = failedAt ? ` (saved ${new Date(failedAt).toLocaleTimeString()})` : '';
+  return [
+    el('h2', {}, `The saved scenario has ${problems.length === 1 ? 'a problem' : `${problems.length} problems`}${when}`),
+    el('p', {}, 'Below is the last run that worked. Fix the file and save it again; the page reloads by itself.'),
+    el(
+      'ul',
+      {},
+      ...problems.map((p) =>
+        el('li', { class: 'problem-item', 'data-path': p.path }, el('code', { class: 'where' }, p.where), p.path ? el('code', { class: 'key-path' }, p.path) : null, ' ', p.message),
+      ),
+    ),
+  ];
+}
+
+export function startLive(live: LiveData, banner: HTMLElement, status: HTMLElement): void {
+  const show = (problems: LiveProblem[] | null, failedAt: number | null): void => {
+    banner.hidden = !problems || problems.length === 0;
+    if (problems && problems.length) replaceChildren(banner, ...problemList(problems, failedAt));
+  };
+  show(live.problems, live.failedAt);
+  status.textContent = 'Watching the scenario file: saving it runs it again.';
+  const events = new EventSource(live.events);
+  events.addEventListener('run', (e) => {
+    const m = JSON.parse((e as MessageEvent<string>).data) as { revision: number };
+    if (m.revision !== live.revision) location.reload();
+  });
+  events.addEventListener('problems', (e) => {
+    const m = JSON.parse((e as MessageEvent<string>).data) as { revision: number; problems: LiveProblem[]; failedAt: number };
+    live.revision = m.revision;
+    show(m.problems, m.failedAt);
+  });
+  events.addEventListener('busy', () => (status.textContent = 'Running the saved scenario…'));
+  events.addEventListener('error', () => (status.textContent = 'Lost the watch server (stopped?). The page shows the last result.'));
+  events.addEventListener('open', () => (status.textContent = 'Watching the scenario file: saving it runs it again.'));
+}
