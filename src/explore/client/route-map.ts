@@ -77,7 +77,8 @@ function mapImage(path: MapPath, rows: number, at: Sample, colors: MapData['colo
 }
 
 /** Dashed lines at the ends of line segments, solid ones at lumped parts (canvas pixels). */
-function drawPlaces(u: uPlot, ctx: CanvasRenderingContext2D, items: MapItem[], light: boolean, labels: boolean): void {
+function drawPlaces(u: uPlot, ctx: CanvasRenderingContext2D, path: MapPath, light: boolean, labels: boolean): void {
+  const items = path.items;
   const { top, height, left, width } = u.bbox;
   const r = devicePixelRatio || 1;
   ctx.save();
@@ -101,15 +102,46 @@ function drawPlaces(u: uPlot, ctx: CanvasRenderingContext2D, items: MapItem[], l
       ctx.lineTo(x, top + height);
       ctx.stroke();
     }
-    if (labels) {
-      ctx.setLineDash([]);
-      ctx.fillStyle = '#1f2430';
-      ctx.font = `${lumped ? 'bold ' : ''}${11 * r}px system-ui, sans-serif`;
-      ctx.textBaseline = 'top';
-      ctx.textAlign = 'center';
-      const mid = lumped ? it.from : (it.from + it.to) / 2;
-      ctx.fillText(it.name, u.valToPos(mid, 'x', true), top + (lumped ? 4 : 18) * r);
-    }
+  }
+  if (labels) placeLabels(u, ctx, path);
+  ctx.restore();
+}
+
+/** Names of segments (mid-span) and parts (at their place) above the plot, on up to three rows, none overlapping. */
+function placeLabels(u: uPlot, ctx: CanvasRenderingContext2D, path: MapPath): void {
+  const items = path.items;
+  const n = path.positions.length;
+  const { top, left, width } = u.bbox;
+  const r = devicePixelRatio || 1;
+  const rowH = 14 * r;
+  const taken: [number, number][][] = [[], [], []];
+  ctx.save();
+  ctx.setLineDash([]);
+  ctx.fillStyle = '#1f2430';
+  ctx.textBaseline = 'top';
+  ctx.textAlign = 'left';
+  // parts first: they are the narrow marks a reader looks for
+  // the path's ends, then parts (the narrow marks a reader looks for), then segments
+  type Label = { text: string; at: number; bold: boolean; align: 'left' | 'center' | 'right' };
+  const ordered: Label[] = [
+    { text: 'driver pin', at: path.positions[0]!, bold: false, align: 'left' },
+    { text: path.receiver, at: path.positions[n - 1]!, bold: true, align: 'right' },
+    ...items.filter((it) => it.kind !== 'line').map((it): Label => ({ text: it.name, at: it.from, bold: true, align: 'center' })),
+    ...items.filter((it) => it.kind === 'line').map((it): Label => ({ text: it.name, at: (it.from + it.to) / 2, bold: false, align: 'center' })),
+  ];
+  for (const it of ordered) {
+    ctx.font = `${it.bold ? 'bold ' : ''}${11 * r}px system-ui, sans-serif`;
+    const w = ctx.measureText(it.text).width + 6 * r;
+    const px = u.valToPos(it.at, 'x', true);
+    const want = it.align === 'left' ? px : it.align === 'right' ? px - w : px - w / 2;
+    const x0 = Math.max(left + 2 * r, Math.min(left + width - w - 2 * r, want));
+    const row = taken.findIndex((spans) => spans.every(([a, b]) => x0 + w <= a || x0 >= b));
+    if (row < 0) continue;
+    taken[row]!.push([x0, x0 + w]);
+    ctx.fillStyle = 'rgba(255, 255, 255, 0.85)';
+    ctx.fillRect(x0, top + (2 + row * 14) * r, w, rowH - r);
+    ctx.fillStyle = '#1f2430';
+    ctx.fillText(it.text, x0 + 3 * r, top + (3 + row * 14) * r);
   }
   ctx.restore();
 }
@@ -133,10 +165,24 @@ function pathTitle(path: MapPath, many: boolean): string {
   return many ? `Driver pin to ${path.receiver}` : 'Driver pin to receiver';
 }
 
+/** The smallest and largest voltage anywhere on the map, padded by 5 %: the profile's fixed scale. */
+function valueRange(values: ArrayLike<number>): [number, number] {
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  if (!(hi > lo)) return [lo - 1, hi + 1];
+  const pad = 0.05 * (hi - lo);
+  return [lo - pad, hi + pad];
+}
+
 export function routeSection(map: MapData, onTime: (t: number) => void): RouteView {
   const data = unpack(map.values);
   const at: Sample = (r, c) => data[r * map.columns + c]!;
   const tEnd = (map.rows - 1) * map.dtRow;
+  const profileRange = valueRange(data);
   let row = Math.max(0, Math.min(map.rows - 1, Math.round(map.start / map.dtRow)));
   let playing = false;
   let speed = 1;
@@ -224,7 +270,7 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
         ctx.drawImage(image, 0, 0, image.width, image.height, x0, y0, x1 - x0, y1 - y0);
         ctx.restore();
       });
-      mapChart.overlays.push((u, ctx) => drawPlaces(u, ctx, path.items, true, false));
+      mapChart.overlays.push((u, ctx) => drawPlaces(u, ctx, path, true, false));
       mapChart.overlays.push((u, ctx) => drawNow(u, ctx, row * map.dtRow));
       mapChart.clicks.push((pt) => showRow(Math.round(pt.y / map.dtRow)));
       mapChart.viewListeners.push(readout.update);
@@ -238,9 +284,9 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
         height: 260,
         series: [{ label: 'voltage', color: '#0072B2', width: 2 }],
         data: [Float64Array.from(path.positions), Float64Array.from(path.columns, (c) => at(row, c))] as unknown as uPlot.AlignedData,
-        whole: { x: xWhole, y: [map.colors.lo, map.colors.hi] },
+        whole: { x: xWhole, y: profileRange },
       });
-      profile.overlays.push((u, ctx) => drawPlaces(u, ctx, path.items, false, true));
+      profile.overlays.push((u, ctx) => drawPlaces(u, ctx, path, false, true));
       profile.redraw();
       const v: PathView = { path, map: mapChart, profile, table, details };
       details.addEventListener('toggle', () => details.open && fillTable(v, Float64Array.from(path.columns, (c) => at(row, c))));
