@@ -2,9 +2,9 @@
 // them): checks; the probes' levels and extremes; and per probe every edge. Each number that was
 // measured at an instant carries that instant (src/measure/instants.ts), so the page can put its
 // cursors there.
-import { bandVolts, type EdgeMeasurement } from '../measure/edges.js';
+import { bandVolts, type EdgeMeasurement } from '../measure/edge-types.js';
 import { checkBand, type CheckResult, type CheckSpec, type MetricName } from '../measure/checks.js';
-import { checkAt, delayAt, edgeMetricAt, probeMetricAt, type MeasuredAt } from '../measure/instants.js';
+import { checkAt, delayAt, edgeMetricAt, edgeNumbered, probeMetricAt, type MeasuredAt } from '../measure/instants.js';
 import type { ProbeMeasurements } from '../measure/summary.js';
 import { formatSI } from '../units.js';
 import type { Cell, Table } from './payload.js';
@@ -26,14 +26,14 @@ function numCell(value: number | null | undefined, unit: string, at: MeasuredAt 
 }
 
 function edgeName(e: EdgeMeasurement): string {
-  return `${e.direction} edge ${e.index + 1}`;
+  return `${e.direction} edge ${e.number}`;
 }
 
 /** The band index of a settling check among an edge's measured bands, by half-width. */
 function bandIndex(spec: CheckSpec | undefined, m: ProbeMeasurements | undefined, edge: number | null): number {
   if (!spec || spec.metric !== 'settling' || !m?.levels || edge === null) return 0;
   const want = bandVolts(checkBand(spec), m.levels.amplitude);
-  const i = m.edges[edge]?.settling.findIndex((s) => Math.abs(s.bandV - want) <= 1e-9 * Math.max(Math.abs(want), 1e-30)) ?? -1;
+  const i = edgeNumbered(m, edge)?.settling.findIndex((s) => Math.abs(s.bandV - want) <= 1e-9 * Math.max(Math.abs(want), 1e-30)) ?? -1;
   return Math.max(0, i);
 }
 
@@ -78,16 +78,17 @@ export function probesTable(probes: Readonly<Record<string, ProbeMeasurements>>)
 function edgeRow(name: string, m: ProbeMeasurements, e: EdgeMeasurement): Cell[] {
   const what = edgeName(e);
   const at = (metric: MetricName) => edgeMetricAt(metric, e);
-  const d = m.delays?.find((x) => x.probeEdge === e.index);
+  const d = m.delays?.find((x) => x.probeEdge === e.number);
   const s = e.settling[0];
   const pct = (v: number | null, p: number | null) => (v === null ? undefined : `${num(v, 'V')} (${num(p, '%')})`);
   return [
-    text(`${e.index + 1} ${e.direction}`),
+    text(`${e.number} ${e.direction}`),
     numCell(e.t50, 's', { a: e.t50 }, name, `the 50 % instant of ${what}`),
     numCell(e.duration1090, 's', at('rise'), name, `10–90 % of ${what}`),
     numCell(e.overshootV, 'V', at('overshoot'), name, `the overshoot of ${what}`, pct(e.overshootV, e.overshootPct)),
     numCell(e.undershootV, 'V', at('undershoot'), name, `the undershoot of ${what}`, pct(e.undershootV, e.undershootPct)),
     numCell(e.ringbackV, 'V', at('ringback'), name, `the ringback of ${what}`, pct(e.ringbackV, e.ringbackPct)),
+    ...(m.thresholds ? [numCell(e.ringbackMarginV, 'V', at('ringbackMargin'), name, `the ringback margin of ${what}`)] : []),
     numCell(s?.time ?? null, 's', at('settling'), name, `settling of ${what} (±${num(s?.bandPct ?? null, '%')})`),
     numCell(e.thresholdFirst, 's', at('crossings'), name, `the threshold crossings of ${what}`),
     numCell(d?.delay50 ?? null, 's', d ? delayAt(d, e) : null, name, `the delay of ${what} from the driver's source`),
@@ -102,10 +103,12 @@ export function edgeTables(probes: Readonly<Record<string, ProbeMeasurements>>):
       id: `edges-${name}`,
       title: `Edges at ${name}`,
       caption:
-        'IEEE 181 definitions (docs/measurements.md). Overshoot, undershoot and ringback in volts and % of the swing; settling from the 50 % instant into the ' +
+        'IEEE 181 definitions (docs/measurements.md). Overshoot, undershoot and ringback (depth below the settled level) in volts and % of the swing' +
+        (m.thresholds ? '; ringback margin: the closest approach back toward vih (rising) / vil (falling) after crossing it, negative inside the undefined band' : '') +
+        '; settling from the 50 % instant into the ' +
         `±${num(m.settleBands.length ? m.edges[0]?.settling[0]?.bandPct ?? null : null, '%')} band; threshold: first crossing of vih (rising) / vil (falling), or of 50 % without thresholds; ` +
         'delay: from the driver source’s 50 % instant. Press a number: spans (10–90 %, settling, threshold crossings, delay) put cursor A at their start and B at their end.',
-      head: ['Edge', '50 % at', '10–90 %', 'Overshoot', 'Undershoot', 'Ringback', 'Settling', 'Threshold at', 'Delay'],
+      head: ['Edge', '50 % at', '10–90 %', 'Overshoot', 'Undershoot', 'Ringback', ...(m.thresholds ? ['Ringback margin'] : []), 'Settling', 'Threshold at', 'Delay'],
       rows: m.edges.map((e) => edgeRow(name, m, e)),
     }));
 }

@@ -4,7 +4,7 @@
 // to put cursors on a number (the explore page) and to say when a check's deciding value happened.
 import type { CheckResult, MetricName } from './checks.js';
 import type { DelayMeasurement } from './delay.js';
-import type { EdgeMeasurement } from './edges.js';
+import type { EdgeMeasurement } from './edge-types.js';
 import type { ProbeMeasurements } from './summary.js';
 
 /** An instant (`b` absent) or a span from `a` to `b` (s), a ≤ b. */
@@ -29,6 +29,9 @@ export function edgeMetricAt(metric: MetricName, e: EdgeMeasurement, band = 0): 
       return instant(e.undershootTime);
     case 'ringback':
       return instant(e.ringbackTime);
+    case 'ringbackMargin':
+      // the margin is the state's worst level against the threshold
+      return e.ringbackMarginV === null ? null : instant(e.stateExtremeTime);
     case 'preshoot':
       // the preshoot is looked for before the start reference instant
       return instant(e.direction === 'rising' ? e.t10 : e.t90);
@@ -60,19 +63,27 @@ export function delayAt(d: DelayMeasurement, probeEdge: EdgeMeasurement | undefi
   return span(d.sourceT50, t);
 }
 
+/** The edge with this number (edges are numbered from 1 in time order). */
+export function edgeNumbered(m: ProbeMeasurements, n: number): EdgeMeasurement | undefined {
+  const e = m.edges[n - 1];
+  return e && e.number === n ? e : m.edges.find((x) => x.number === n);
+}
+
 /** The instants of a probe-level metric. */
 export function probeMetricAt(metric: MetricName, m: ProbeMeasurements): MeasuredAt | null {
   switch (metric) {
     case 'min':
+    case 'belowLowRail':
       return instant(m.minTime);
     case 'max':
+    case 'aboveHighRail':
       return instant(m.maxTime);
     case 'final':
       return { a: m.t0 + m.duration };
     case 'noiseMarginHigh':
     case 'noiseMarginLow': {
       const k = metric === 'noiseMarginHigh' ? m.noiseMargins?.highEdge : m.noiseMargins?.lowEdge;
-      const e = k === null || k === undefined ? undefined : m.edges[k];
+      const e = k === null || k === undefined ? undefined : edgeNumbered(m, k);
       return e ? instant(e.stateExtremeTime) : null;
     }
     default:
@@ -92,15 +103,15 @@ export function checkAt(r: CheckResult, probes: Readonly<Record<string, ProbeMea
   if (metric === 'delay' || metric === 'delayThreshold') {
     const d = m.delays?.find((x) => x.probeEdge === r.edge && (r.time === null || x.sourceT50 === r.time));
     if (!d) return null;
-    const e = d.probeEdge === null ? undefined : m.edges[d.probeEdge];
+    const e = d.probeEdge === null ? undefined : edgeNumbered(m, d.probeEdge);
     if (metric === 'delay') return delayAt(d, e, 'delay');
     // max limits compare the last threshold crossing, min limits the first: the deciding one matches the measured value
     const last = d.delayThresholdLast, first = d.delayThresholdFirst;
     return delayAt(d, e, first !== null && r.measured === first && r.measured !== last ? 'first' : 'last');
   }
   const probeLevel = probeMetricAt(metric, m);
-  if (probeLevel || metric === 'min' || metric === 'max' || metric === 'final') return probeLevel;
+  if (probeLevel || ['min', 'max', 'final', 'belowLowRail', 'aboveHighRail'].includes(metric)) return probeLevel;
   if (r.edge === null) return null;
-  const e = m.edges[r.edge];
+  const e = edgeNumbered(m, r.edge);
   return e ? edgeMetricAt(metric, e, bandIndex) : null;
 }
