@@ -1,100 +1,171 @@
 // DC operating point of the ladder, the starting state of every run: inductors are shorts,
-// capacitors open, the source at its initial value. The chain is solved exactly with two sweeps of
-// Thevenin equivalents (one from each end), so ideal sources and zero-ohm parts need no special matrix.
-import { OPEN, parallel, type Thevenin } from './thevenin.js';
-import type { Ladder } from './ladder.js';
+// capacitors open, every source at its initial value and every rail on. At DC a cell is its
+// resistance R′ΔZ and a node its conductance G′ΔZ, so this is the resistive network of the discrete
+// ladder itself and the state it gives is stationary under the time loop.
+//
+// One nodal solve of the whole graph (dc-network.ts) on its terminal nodes (every node that is not
+// inside a segment): each segment's interior is first reduced to its exact two-port between its end
+// nodes (a short, a resistor, or a π of conductances), then filled back in from the end voltages.
+// Zero-resistance lines and parts are shorts and ideal sources fix their node, so a lossless route,
+// a 0 Ω driver and a 0 Ω part all work; a node with no DC path anywhere starts at 0 V.
+import { DcNetwork } from './dc-network.js';
+import { EXTERNAL, externalVoltage, type Ladder, type SegmentSpan } from './ladder.js';
 
 export interface DcState {
-  /** Node voltages. */
+  /** Voltage of every slot (ghost slots hold their real node's voltage). */
   v: Float64Array;
-  /** Current in branch j, from node j to node j+1. */
-  branch: Float64Array;
+  /** Cell currents, aligned with the line kernel's current array: i[base + 1 + j] is cell j of a segment. */
+  i: Float64Array;
   /** Current in each lumped branch, from its `p` end to its `q` end. */
   lumped: Float64Array;
 }
 
+type Reduction = { kind: 'short'; index: number; leak: number } | { kind: 'resistive'; g: number } | { kind: 'pi'; series: number; shunt: number };
 
-function series(a: Thevenin, r: number): Thevenin {
-  return a.r === Infinity || r === Infinity ? OPEN : { e: a.e, r: a.r + r };
+/** The interior of a segment as a two-port at DC (cells ≥ 1). */
+function reduceSegment(ladder: Ladder, s: SegmentSpan, net: DcNetwork): Reduction {
+  const rc = s.line.r * s.cellLength;
+  const gi = s.cells > 1 ? ladder.nodeG[s.base + 1] : 0;
+  if (rc === 0) {
+    // a short from end to end; the interior's leakage (all at the end voltage) is put on the first end
+    const leak = (s.cells - 1) * gi;
+    net.toRail(s.first, leak, 0);
+    return { kind: 'short', index: net.short(s.first, s.last), leak };
+  }
+  if (gi === 0) {
+    const g = 1 / (s.cells * rc);
+    net.conductance(s.first, s.last, g);
+    return { kind: 'resistive', g };
+  }
+  // y11 and y21 from the interior with the first end at 1 V and the far end at 0 V; π equivalent:
+  // −y21 in series, y11 + y21 from each end to ground (the ladder is symmetric).
+  const v = interiorVoltages(s.cells, rc, gi, 1, 0);
+  const y11 = (1 - v[1]) / rc;
+  const y21 = -v[s.cells - 1] / rc;
+  net.conductance(s.first, s.last, -y21);
+  net.toRail(s.first, y11 + y21, 0);
+  net.toRail(s.last, y11 + y21, 0);
+  return { kind: 'pi', series: -y21, shunt: y11 + y21 };
 }
 
-export function solveDc(ladder: Ladder, source: number): DcState {
-  const m = ladder.nodes;
-  const seriesAt = new Int32Array(Math.max(m - 1, 0)).fill(-1);
-  ladder.lumped.forEach((b, i) => {
-    if (b.role === 'series') seriesAt[b.p] = i;
-  });
-  const branchR = (j: number): number => {
-    if (ladder.isCell[j]) return ladder.cellR[j];
-    const part = ladder.lumped[seriesAt[j]].part;
-    return part.c !== undefined ? Infinity : part.r;
-  };
-  const shunt: Thevenin[] = Array.from({ length: m }, (_, k) =>
-    ladder.nodeG[k] > 0 ? { e: 0, r: 1 / ladder.nodeG[k] } : OPEN,
-  );
-  for (const b of ladder.lumped) {
-    if (b.role === 'series') continue;
-    const node = b.role === 'driver' ? b.q : b.p;
-    const e = b.role === 'driver' ? source : b.part.rail;
-    const r = b.part.c !== undefined ? Infinity : b.part.r;
-    shunt[node] = parallel(shunt[node], { e, r }, b.item);
+/**
+ * Voltages of nodes 0 … cells of a uniform ladder (series rc per cell, shunt gi per interior node) with
+ * the ends held at va and vb: the tridiagonal node equations solved by the Thomas algorithm (stable:
+ * the matrix is diagonally dominant).
+ */
+function interiorVoltages(cells: number, rc: number, gi: number, va: number, vb: number): Float64Array {
+  const v = new Float64Array(cells + 1);
+  v[0] = va;
+  v[cells] = vb;
+  const m = cells - 1;
+  if (m <= 0) return v;
+  const g = 1 / rc;
+  const d = 2 * g + gi;
+  const cp = new Float64Array(m);
+  const dp = new Float64Array(m);
+  // row k (node k+1): d·v[k+1] − g·v[k] − g·v[k+2] = 0
+  cp[0] = -g / d;
+  dp[0] = (g * va + (m === 1 ? g * vb : 0)) / d;
+  for (let k = 1; k < m; k++) {
+    const den = d + g * cp[k - 1];
+    cp[k] = -g / den;
+    dp[k] = ((k === m - 1 ? g * vb : 0) + g * dp[k - 1]) / den;
   }
-  const left: Thevenin[] = new Array(m);
-  const right: Thevenin[] = new Array(m);
-  left[0] = shunt[0];
-  for (let k = 1; k < m; k++) left[k] = parallel(shunt[k], series(left[k - 1], branchR(k - 1)), `node ${k}`);
-  right[m - 1] = shunt[m - 1];
-  for (let k = m - 2; k >= 0; k--) right[k] = parallel(shunt[k], series(right[k + 1], branchR(k)), `node ${k}`);
-
-  const v = new Float64Array(m);
-  for (let k = 0; k < m; k++) {
-    const seen = k === 0 ? right[0] : parallel(series(left[k - 1], branchR(k - 1)), right[k], `node ${k}`);
-    v[k] = seen.r === Infinity ? 0 : seen.e; // a node with no DC path anywhere starts at 0 V
-  }
-  const branch = new Float64Array(Math.max(m - 1, 0));
-  for (let j = 0; j < m - 1; j++) {
-    const rTotal = left[j].r + branchR(j) + right[j + 1].r;
-    const drive = left[j].e - right[j + 1].e;
-    branch[j] = rTotal === Infinity || rTotal === 0 ? 0 : drive / rTotal;
-  }
-  return { v, branch, lumped: lumpedCurrents(ladder, source, v, branch) };
+  v[m] = dp[m - 1];
+  for (let k = m - 2; k >= 0; k--) v[k + 1] = dp[k] - cp[k] * v[k + 2];
+  return v;
 }
 
-/** Currents in the lumped branches; a zero-ohm branch takes what Kirchhoff's current law leaves over. */
-function lumpedCurrents(ladder: Ladder, source: number, v: Float64Array, branch: Float64Array): Float64Array {
-  const out = new Float64Array(ladder.lumped.length);
-  const m = ladder.nodes;
-  // Per node: net known current leaving the node, and the ideal branches still to be given a current.
-  const leaving = new Float64Array(m);
-  const ideal: number[][] = Array.from({ length: m }, () => []);
-  for (let k = 0; k < m; k++) {
-    leaving[k] += ladder.nodeG[k] * v[k];
-    if (k < m - 1) leaving[k] += branch[k];
-    if (k > 0) leaving[k] -= branch[k - 1];
-  }
-  ladder.lumped.forEach((b, i) => {
-    if (b.role === 'series') {
-      out[i] = branch[b.p];
-      return;
+export function solveDc(ladder: Ladder, sources: Float64Array): DcState {
+  const net = new DcNetwork(ladder.slots);
+  const where = (b: Ladder['lumped'][number]) => `${b.role === 'driver' ? 'driver' : b.item}`;
+  for (let k = 0; k < ladder.slots; k++) net.toRail(k, ladder.nodeG[k], 0);
+  const reductions = ladder.segments.map((s) => (s.cells > 0 ? reduceSegment(ladder, s, net) : undefined));
+  // Lumped branches: a capacitor is open; R > 0 a conductance; R = 0 (with or without L) a short or an ideal source.
+  const zero = ladder.lumped.map((b, k) => {
+    if (b.part.c !== undefined) return -1;
+    if (b.part.r > 0) {
+      if (b.p !== EXTERNAL && b.q !== EXTERNAL) net.conductance(b.p, b.q, 1 / b.part.r);
+      else net.toRail(b.p !== EXTERNAL ? b.p : b.q, 1 / b.part.r, externalVoltage(b, sources));
+      return -1;
     }
-    const node = b.role === 'driver' ? b.q : b.p;
-    const sign = b.role === 'driver' ? -1 : 1; // the driver's current flows into its node
-    if (b.part.c !== undefined) out[i] = 0;
-    else if (b.part.r > 0) {
-      out[i] = b.role === 'driver' ? (source - v[node]) / b.part.r : (v[node] - b.part.rail) / b.part.r;
-    } else {
-      ideal[node].push(i);
-      return;
-    }
-    leaving[node] += sign * out[i];
+    if (b.p !== EXTERNAL && b.q !== EXTERNAL) return net.short(b.p, b.q);
+    return net.ideal(b.p !== EXTERNAL ? b.p : b.q, externalVoltage(b, sources), where(ladder.lumped[k]));
   });
-  for (let k = 0; k < m; k++) {
-    const list = ideal[k];
-    for (const i of list) {
-      const sign = ladder.lumped[i].role === 'driver' ? -1 : 1;
-      out[i] = (-sign * leaving[k]) / list.length;
+  const v = net.solve();
+  const state: DcState = { v, i: new Float64Array(ladder.slots + 1), lumped: new Float64Array(ladder.lumped.length) };
+  fillSegments(ladder, state, reductions);
+  const leaving = outflows(ladder, state, reductions, sources);
+  const { shorts, ideals } = net.zeroResistanceCurrents(leaving);
+  ladder.lumped.forEach((b, k) => {
+    if (zero[k] < 0) return;
+    if (b.p !== EXTERNAL && b.q !== EXTERNAL) state.lumped[k] = shorts[zero[k]];
+    else state.lumped[k] = b.p !== EXTERNAL ? ideals[zero[k]] : -ideals[zero[k]];
+  });
+  ladder.segments.forEach((s, n) => {
+    const red = reductions[n];
+    if (red?.kind === 'short') fillShortCurrents(s, state, shorts[red.index], ladder.nodeG[s.base + 1]);
+  });
+  for (let g = 0; g < ladder.ghosts.length; g += 2) v[ladder.ghosts[g]] = v[ladder.ghosts[g + 1]];
+  return state;
+}
+
+/** Interior voltages and cell currents of every segment that is not a short, from its end voltages. */
+function fillSegments(ladder: Ladder, state: DcState, reductions: (Reduction | undefined)[]): void {
+  ladder.segments.forEach((s, n) => {
+    const red = reductions[n];
+    if (!red) return;
+    const va = state.v[s.first];
+    const vb = state.v[s.last];
+    if (red.kind === 'short') {
+      for (let k = 1; k < s.cells; k++) state.v[s.base + k] = va;
+      return;
     }
+    const rc = s.line.r * s.cellLength;
+    if (red.kind === 'resistive') {
+      const current = (va - vb) * red.g;
+      for (let k = 1; k < s.cells; k++) state.v[s.base + k] = va - k * rc * current;
+      for (let j = 0; j < s.cells; j++) state.i[s.base + 1 + j] = current;
+      return;
+    }
+    const w = interiorVoltages(s.cells, rc, ladder.nodeG[s.base + 1], va, vb);
+    for (let k = 1; k < s.cells; k++) state.v[s.base + k] = w[k];
+    for (let j = 0; j < s.cells; j++) state.i[s.base + 1 + j] = (w[j] - w[j + 1]) / rc;
+  });
+}
+
+/** Cell currents of a zero-resistance segment: `atLast` arrives at the far end, each interior node's leakage adds going back. */
+function fillShortCurrents(s: SegmentSpan, state: DcState, atLast: number, gi: number): void {
+  const leak = s.cells > 1 ? gi * state.v[s.first] : 0;
+  let current = atLast;
+  for (let j = s.cells - 1; j >= 0; j--) {
+    state.i[s.base + 1 + j] = current;
+    current += leak;
   }
+}
+
+/** Current each node sends out through everything but the zero-resistance branches. */
+function outflows(ladder: Ladder, state: DcState, reductions: (Reduction | undefined)[], sources: Float64Array): Float64Array {
+  const { v } = state;
+  const out = new Float64Array(ladder.slots);
+  for (let k = 0; k < ladder.slots; k++) out[k] = ladder.nodeG[k] * v[k];
+  ladder.segments.forEach((s, n) => {
+    const red = reductions[n];
+    if (!red) return;
+    if (red.kind === 'short') out[s.first] += red.leak * v[s.first];
+    else {
+      out[s.first] += state.i[s.base + 1];
+      out[s.last] -= state.i[s.base + s.cells];
+    }
+  });
+  ladder.lumped.forEach((b, k) => {
+    if (b.part.c !== undefined || !(b.part.r > 0)) return;
+    const vp = b.p !== EXTERNAL ? v[b.p] : externalVoltage(b, sources);
+    const vq = b.q !== EXTERNAL ? v[b.q] : externalVoltage(b, sources);
+    const i = (vp - vq) / b.part.r;
+    state.lumped[k] = i;
+    if (b.p !== EXTERNAL) out[b.p] += i;
+    if (b.q !== EXTERNAL) out[b.q] -= i;
+  });
   return out;
 }
-

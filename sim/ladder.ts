@@ -1,111 +1,205 @@
-// The route as a chain of nodes: node 0 is the driver pin, the last node is the receiver.
-// Branch j joins node j to node j+1 and is either one line cell (R'ΔZ in series with L'ΔZ) or a
-// lumped series part. Each cell puts half its C'ΔZ and G'ΔZ on each of its two end nodes, the
-// standard staggered placement (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD chapter).
-import type { LineRLGC, Net, Part } from './model.js';
+// The compiled circuit as a ladder of numbered nodes ("slots") for the time loop.
+//
+// Each line segment of N cells occupies the slots base … base+N: its N − 1 interior nodes are
+// base+1 … base+N−1 and its cells' currents sit at i[base+1 … base+N] (the cell from slot j−1 to j
+// at i[j]), so the cell loop walks contiguous memory exactly as on a chain. The two end slots base
+// and base+N are the segment's end nodes when the numbering allows it (every segment of a chain) and
+// otherwise ghost slots: copies of the real end node's voltage, refreshed before each step. Each cell
+// puts half its C′ΔZ and G′ΔZ on each of its two end nodes, the standard staggered placement
+// (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD chapter), so a junction where k
+// segments meet carries the sum of their half cells; its Kirchhoff current sum runs over an explicit
+// incidence list (`ends`) instead of neighbour arithmetic.
+import { RAIL, type Circuit } from './circuit.js';
+import { NetError } from './errors.js';
+import type { LineRLGC, Part } from './model.js';
 import type { Discretization } from './result.js';
 
-/** Marks an external end of a lumped branch: the driver's source or a fixed rail. */
+/** Marks an external end of a lumped branch: a source's voltage or a part's rail. */
 export const EXTERNAL = -1;
 
-/** A lumped branch from node `p` to node `q` (either may be EXTERNAL), elements R, L, C in series. */
+/** A lumped branch from slot `p` to slot `q` (either may be EXTERNAL), elements R, L, C in series. */
 export interface LumpedBranch {
   item: string;
   role: 'driver' | 'series' | 'shunt' | 'receiver' | 'dielectric';
   p: number;
   q: number;
   part: Part;
+  /** Index of the source whose voltage an EXTERNAL `p` end has; −1 when `p` is a node. An EXTERNAL `q` end is `part.rail`. */
+  source: number;
 }
 
-export interface ItemSpan {
-  kind: 'line' | 'series' | 'shunt';
-  /** First node of the item (for a shunt: the node it hangs on). */
-  start: number;
-  /** Last node of the item. */
-  end: number;
+export interface SegmentSpan {
+  name: string;
+  /** Index into Circuit.segments and Discretization.segments. */
+  index: number;
+  /** Slots base … base + cells (see the header); cells = 0 for a zero-length line (a plain wire). */
+  base: number;
+  cells: number;
+  /** Real slots of the start and far end nodes. */
+  first: number;
+  last: number;
   cellLength: number;
-  /** For a line: its per-unit-length model. */
-  line?: LineRLGC;
+  line: LineRLGC;
+}
+
+/** One cell current meeting an end node: +1 flows into the node (a segment's last cell), −1 out of it. */
+export interface Incidence {
+  cell: number;
+  sign: number;
 }
 
 export interface Ladder {
+  circuit: Circuit;
+  /** Real nodes (equals Discretization.nodes). */
   nodes: number;
+  /** Length of the voltage array: real nodes and ghost slots. */
+  slots: number;
   nodeC: Float64Array;
   nodeG: Float64Array;
-  /** Per branch j (nodes j → j+1): cell inductance and resistance; 0 for lumped branches. */
-  cellL: Float64Array;
-  cellR: Float64Array;
-  isCell: Uint8Array;
-  /** Distance of each node from the driver pin along the route (m); lumped parts have no length. */
+  /** Distance of each slot from the driver pin along the tree (m); lumped parts have no length. */
   position: Float64Array;
-  /** The driver branch first, then every series, shunt and receiver part. */
+  /** Slot of each circuit node. */
+  nodeSlot: Int32Array;
+  segments: SegmentSpan[];
+  /** Ghost slots and the real slots they copy: [ghost, real, ghost, real, …]. */
+  ghosts: Int32Array;
+  /** Every lumped branch: the sources' first, then dielectric end branches, series, shunt and receiver parts. */
   lumped: LumpedBranch[];
-  items: Map<string, ItemSpan>;
+  /** Per real slot that ends a segment with cells: the cell currents meeting it, in segment order. */
+  ends: Map<number, Incidence[]>;
 }
 
-export function buildLadder(net: Net, plan: Discretization): Ladder {
-  const nodes = plan.nodes;
-  const ladder: Ladder = {
-    nodes,
-    nodeC: new Float64Array(nodes),
-    nodeG: new Float64Array(nodes),
-    cellL: new Float64Array(Math.max(nodes - 1, 0)),
-    cellR: new Float64Array(Math.max(nodes - 1, 0)),
-    isCell: new Uint8Array(Math.max(nodes - 1, 0)),
-    position: new Float64Array(nodes),
-    lumped: [{ item: 'driver', role: 'driver', p: EXTERNAL, q: 0, part: { r: net.driver.resistance, l: 0, rail: 0 } }],
-    items: new Map(),
+interface Numbering {
+  slot: Int32Array;
+  ghosts: number[];
+  bases: Int32Array;
+  count: number;
+}
+
+/** Slots for every circuit node and segment, in element order (the chain's numbering for a chain). */
+function numberSlots(c: Circuit, plan: Discretization): Numbering {
+  const slot = new Int32Array(c.nodes.length).fill(-1);
+  const bases = new Int32Array(c.segments.length).fill(-1);
+  const ghosts: number[] = [];
+  let count = 0;
+  const ensure = (node: number) => {
+    if (slot[node] < 0) slot[node] = count++;
+    return slot[node];
   };
-  const cellsOf = new Map(plan.segments.map((s) => [s.name, s]));
-  let node = 0;
-  let distance = 0;
-  for (const item of net.route) {
-    if (item.kind === 'line') {
-      const seg = cellsOf.get(item.name)!;
-      const dz = seg.cellLength;
-      for (let k = 0; k < seg.cells; k++) {
-        const j = node + k;
-        ladder.isCell[j] = 1;
-        ladder.position[j + 1] = distance + (k + 1) * dz;
-        ladder.cellL[j] = item.line.l * dz;
-        ladder.cellR[j] = item.line.r * dz;
-        const halfC = (item.line.c * dz) / 2;
-        const halfG = (item.line.g * dz) / 2;
-        ladder.nodeC[j] += halfC;
-        ladder.nodeC[j + 1] += halfC;
-        ladder.nodeG[j] += halfG;
-        ladder.nodeG[j + 1] += halfG;
-      }
-      ladder.items.set(item.name, { kind: 'line', start: node, end: node + seg.cells, cellLength: dz, line: item.line });
-      // The half cells at the segment's two ends carry their share of the dielectric branches as
-      // lumped R–C parts, solved with the end nodes; interior nodes keep theirs in the line kernel.
-      if (seg.cells > 0) {
-        for (const t of item.line.shunt ?? []) {
-          const c = (t.value * dz) / 2;
-          for (const end of [node, node + seg.cells]) {
-            ladder.lumped.push({ item: item.name, role: 'dielectric', p: end, q: EXTERNAL, part: { r: t.tau / c, l: 0, c, rail: 0 } });
-          }
-        }
-      }
-      node += seg.cells;
-      distance += item.length;
-      ladder.position[node] = distance;
-    } else if (item.kind === 'series') {
-      ladder.lumped.push({ item: item.name, role: 'series', p: node, q: node + 1, part: item.part });
-      ladder.position[node + 1] = distance;
-      ladder.items.set(item.name, { kind: 'series', start: node, end: node + 1, cellLength: 0 });
-      node += 1;
-    } else {
-      for (const part of item.parts) ladder.lumped.push({ item: item.name, role: 'shunt', p: node, q: EXTERNAL, part });
-      ladder.items.set(item.name, { kind: 'shunt', start: node, end: node, cellLength: 0 });
+  // Elements in the order they were compiled: by the node each one leads to.
+  const elements: { to: number; segment: number; from: number }[] = [
+    ...c.segments.map((s, k) => ({ to: s.to, segment: k, from: s.from })),
+    ...c.parts.filter((p) => p.q !== RAIL).map((p) => ({ to: p.q, segment: -1, from: p.p })),
+  ].sort((a, b) => a.to - b.to);
+  ensure(0);
+  for (const e of elements) {
+    const f = ensure(e.from);
+    const cells = e.segment >= 0 ? plan.segments[e.segment].cells : -1;
+    if (cells < 0) {
+      ensure(e.to);
+      continue;
     }
+    if (cells === 0) {
+      if (slot[e.to] >= 0 && slot[e.to] !== f) throw new NetError([{ path: c.segments[e.segment].name, message: 'a zero-length line between two nodes that are already joined (a loop) is not supported' }]);
+      slot[e.to] = f;
+      continue;
+    }
+    let base = f;
+    if (f !== count - 1) {
+      base = count++;
+      ghosts.push(base, f);
+    }
+    bases[e.segment] = base;
+    count = base + cells; // interior slots base+1 … base+cells−1
+    if (slot[e.to] < 0) slot[e.to] = count++;
+    else ghosts.push(count++, slot[e.to]);
   }
-  for (const part of net.receiver) ladder.lumped.push({ item: 'receiver', role: 'receiver', p: node, q: EXTERNAL, part });
-  if (node !== nodes - 1) throw new Error(`internal: ladder has ${node + 1} nodes, plan expected ${nodes}`);
+  for (let n = 0; n < c.nodes.length; n++) ensure(n);
+  return { slot, ghosts, bases, count };
+}
+
+export function buildLadder(c: Circuit, plan: Discretization): Ladder {
+  const num = numberSlots(c, plan);
+  const slots = num.count;
+  const ladder: Ladder = {
+    circuit: c,
+    nodes: slots - num.ghosts.length / 2,
+    slots,
+    nodeC: new Float64Array(slots),
+    nodeG: new Float64Array(slots),
+    position: new Float64Array(slots),
+    nodeSlot: num.slot,
+    segments: [],
+    ghosts: Int32Array.from(num.ghosts),
+    lumped: c.sources.map((s, k) => ({ item: s.name, role: 'driver' as const, p: EXTERNAL, q: num.slot[s.node], part: { r: s.resistance, l: 0, rail: 0 }, source: k })),
+    ends: new Map(),
+  };
+  if (ladder.nodes !== plan.nodes) throw new Error(`internal: ladder has ${ladder.nodes} nodes, plan expected ${plan.nodes}`);
+  placeSegments(ladder, c, plan, num.bases);
+  setPositions(ladder, c);
+  for (const p of c.parts) {
+    const role = p.role;
+    ladder.lumped.push({ item: p.item, role, p: num.slot[p.p], q: p.q === RAIL ? EXTERNAL : num.slot[p.q], part: p.part, source: -1 });
+  }
   return ladder;
 }
 
-/** Voltage of the external end of a lumped branch: the source value for the driver, else the part's rail. */
-export function externalVoltage(b: LumpedBranch, source: number): number {
-  return b.role === 'driver' ? source : b.part.rail;
+/** Cells' half C and G on their end nodes, the incidence at segment ends, dielectric end branches. */
+function placeSegments(ladder: Ladder, c: Circuit, plan: Discretization, bases: Int32Array): void {
+  c.segments.forEach((seg, index) => {
+    const cells = plan.segments[index].cells;
+    const dz = plan.segments[index].cellLength;
+    const first = ladder.nodeSlot[seg.from];
+    const last = ladder.nodeSlot[seg.to];
+    const base = cells > 0 ? bases[index] : first;
+    ladder.segments.push({ name: seg.name, index, base, cells, first, last, cellLength: dz, line: seg.line });
+    if (cells === 0) return;
+    const halfC = (seg.line.c * dz) / 2;
+    const halfG = (seg.line.g * dz) / 2;
+    for (let k = 0; k < cells; k++) {
+      const left = k === 0 ? first : base + k;
+      const right = k === cells - 1 ? last : base + k + 1;
+      ladder.nodeC[left] += halfC;
+      ladder.nodeC[right] += halfC;
+      ladder.nodeG[left] += halfG;
+      ladder.nodeG[right] += halfG;
+    }
+    addEnd(ladder, first, { cell: base + 1, sign: -1 });
+    addEnd(ladder, last, { cell: base + cells, sign: 1 });
+    // The half cells at the segment's two ends carry their share of the dielectric branches as
+    // lumped R–C parts, solved with the end nodes; interior nodes keep theirs in the line kernel.
+    for (const t of seg.line.shunt ?? []) {
+      const cap = (t.value * dz) / 2;
+      for (const end of [first, last]) {
+        ladder.lumped.push({ item: seg.name, role: 'dielectric', p: end, q: EXTERNAL, part: { r: t.tau / cap, l: 0, c: cap, rail: 0 }, source: -1 });
+      }
+    }
+  });
+}
+
+function addEnd(ladder: Ladder, node: number, inc: Incidence): void {
+  const list = ladder.ends.get(node);
+  if (list) list.push(inc);
+  else ladder.ends.set(node, [inc]);
+}
+
+/** Distances from the driver pin: along each element from its `from` node (elements come in tree order). */
+function setPositions(ladder: Ladder, c: Circuit): void {
+  const at = new Float64Array(c.nodes.length);
+  const elements = [
+    ...c.segments.map((s, k) => ({ to: s.to, from: s.from, length: s.length, span: ladder.segments[k] })),
+    ...c.parts.filter((p) => p.q !== RAIL).map((p) => ({ to: p.q, from: p.p, length: 0, span: undefined })),
+  ].sort((a, b) => a.to - b.to);
+  for (const e of elements) {
+    at[e.to] = at[e.from] + e.length;
+    const span = e.span;
+    if (span && span.cells > 0) for (let k = 1; k < span.cells; k++) ladder.position[span.base + k] = at[e.from] + k * span.cellLength;
+  }
+  for (let n = 0; n < c.nodes.length; n++) ladder.position[ladder.nodeSlot[n]] = at[n];
+  for (let g = 0; g < ladder.ghosts.length; g += 2) ladder.position[ladder.ghosts[g]] = ladder.position[ladder.ghosts[g + 1]];
+}
+
+/** Voltage of the external end of a lumped branch: the source value for a driver, else the part's rail. */
+export function externalVoltage(b: LumpedBranch, sources: Float64Array): number {
+  return b.source >= 0 ? sources[b.source] : b.part.rail;
 }

@@ -9,7 +9,7 @@
 // (recursive convolution of a sum of exponentials; Paul, Analysis of Multiconductor Transmission
 // Lines, FDTD with frequency-dependent parameters, in its trapezoidal form).
 import type { DcState } from './dc.js';
-import type { ItemSpan } from './ladder.js';
+import type { SegmentSpan } from './ladder.js';
 
 export interface LossySegments {
   count: number;
@@ -37,14 +37,14 @@ function trapezoid(dt: number, tau: number): [number, number] {
   return [(1 - h) / (1 + h), h / (1 + h)];
 }
 
-export function buildLossySegments(spans: ItemSpan[], dt: number, dc: DcState): LossySegments {
+export function buildLossySegments(spans: SegmentSpan[], dt: number, dc: DcState): LossySegments {
   const n = spans.length;
   const ls: LossySegments = {
     count: n,
-    start: Int32Array.from(spans, (s) => s.start),
-    end: Int32Array.from(spans, (s) => s.end),
-    series: Int32Array.from(spans, (s) => padToBlock(s.line!.series?.length ?? 0)),
-    shunt: Int32Array.from(spans, (s) => padToBlock(s.line!.shunt?.length ?? 0)),
+    start: Int32Array.from(spans, (s) => s.base),
+    end: Int32Array.from(spans, (s) => s.base + s.cells),
+    series: Int32Array.from(spans, (s) => padToBlock(s.line.series?.length ?? 0)),
+    shunt: Int32Array.from(spans, (s) => padToBlock(s.line.shunt?.length ?? 0)),
     coefOffset: new Int32Array(n),
     currentStateOffset: new Int32Array(n),
     voltageStateOffset: new Int32Array(n),
@@ -59,7 +59,7 @@ export function buildLossySegments(spans: ItemSpan[], dt: number, dc: DcState): 
     ls.coefOffset[k] = co;
     ls.currentStateOffset[k] = io;
     ls.voltageStateOffset[k] = vo;
-    const cells = s.end - s.start;
+    const cells = s.cells;
     co += 4 + 3 * (ls.series[k] + ls.shunt[k]);
     io += cells * ls.series[k];
     vo += Math.max(cells - 1, 0) * ls.shunt[k];
@@ -68,7 +68,7 @@ export function buildLossySegments(spans: ItemSpan[], dt: number, dc: DcState): 
   ls.currentState = new Float64Array(io);
   ls.voltageState = new Float64Array(vo);
   spans.forEach((s, k) => {
-    const line = s.line!;
+    const line = s.line;
     const dz = s.cellLength;
     const c = ls.coef;
     let o = ls.coefOffset[k];
@@ -105,10 +105,9 @@ export function buildLossySegments(spans: ItemSpan[], dt: number, dc: DcState): 
       c[o++] = x.beta;
     }
     // DC start: every section's inductor carries the cell current, every branch capacitor holds the node voltage.
-    const cells = s.end - s.start;
-    for (let j = 0; j < cells; j++) {
-      for (let q = 0; q < ls.series[k]; q++) ls.currentState[ls.currentStateOffset[k] + j * ls.series[k] + q] = dc.branch[s.start + j];
-      if (j > 0) for (let q = 0; q < ls.shunt[k]; q++) ls.voltageState[ls.voltageStateOffset[k] + (j - 1) * ls.shunt[k] + q] = dc.v[s.start + j];
+    for (let j = 0; j < s.cells; j++) {
+      for (let q = 0; q < ls.series[k]; q++) ls.currentState[ls.currentStateOffset[k] + j * ls.series[k] + q] = dc.i[s.base + 1 + j];
+      if (j > 0) for (let q = 0; q < ls.shunt[k]; q++) ls.voltageState[ls.voltageStateOffset[k] + (j - 1) * ls.shunt[k] + q] = dc.v[s.base + j];
     }
   });
   return ls;

@@ -1,45 +1,41 @@
-// The lumped parts of the route (driver, series parts, shunt parts, receiver parts) and the nodes they
-// touch, advanced implicitly. Each part (R, L, C in series) is a trapezoidal companion model,
-// v(n+1) = Z·i(n+1) + h(n) with Z = R + 2L/Δt + Δt/(2C) (Dommel, "Digital computation of electromagnetic
-// transients", IEEE Trans. PAS-88, 1969). The node equation of a node with line capacitance is
-// centred at n+½ like the line's own; a node with none obeys Kirchhoff's current law at n+1.
-// Nodes joined by lumped series parts form a cluster; every cluster's update is linear and constant,
-// y(n+1) = A·y(n) + B·u(n+1), with A and B formed once here. u holds the neighbouring line-cell
-// currents at n+½, the source voltage at n+1 and a constant 1 for rails.
-import { invert, multiply } from './dense.js';
+// Lumped clusters: the nodes joined by lumped parts (sources, series, shunt, receiver and dielectric
+// end branches), each advanced implicitly by a small nodal solve per time step.
+//
+// Every part (R, L, C in series) is a trapezoidal companion model, v(n+1) = Z·i(n+1) + h(n) with
+// Z = R + 2L/Δt + Δt/(2C), i.e. a conductance 1/Z in parallel with a history current −h/Z (Dommel,
+// "Digital computation of electromagnetic transients in single- and multiphase networks", IEEE Trans.
+// PAS-88(4), 1969). A part with Z = 0 (a plain wire, an ideal source) keeps its current as an extra
+// unknown, as in modified nodal analysis (Ho, Ruehli & Brennan, IEEE Trans. Circuits and Systems
+// 22(6), 1975). A node with line capacitance obeys its node equation centred at n+½ like the line's
+// own (the branch currents averaged over the step, equation times 2):
+//   (2C/Δt + G)·V(n+1) + Σ ±(i(n+1) + i(n)) = (2C/Δt − G)·V(n) + 2·I_line(n+½)
+// and a node with none Kirchhoff's current law at n+1: Σ ±i(n+1) = I_line(n+½). The node matrix is
+// constant, so it is inverted once; each step forms the right-hand side from the history of every
+// branch, solves, and updates each branch's state (i, v_L, v_C) on its own.
+//
+// The seam for elements other than linear R–L–C branches (nonlinear devices solved by Newton–Raphson,
+// S-parameter blocks as a companion admittance with recursive-convolution history) is the
+// LumpedCluster interface: such a cluster stamps its elements into the same node equations and
+// advances with the same inputs (the line currents at n+½ through the incidence lists, the sources'
+// values at n+1).
+import { invert } from './dense.js';
 import { NetError } from './errors.js';
-import { EXTERNAL, type Ladder } from './ladder.js';
 import type { DcState } from './dc.js';
+import { EXTERNAL, type Ladder } from './ladder.js';
 
-/** Input slot codes beyond line-current indices. */
-const U_SOURCE = -1;
-const U_ONE = -2;
+export interface LumpedCluster {
+  /** Slots of the cluster's nodes. */
+  readonly nodes: Int32Array;
+  /** Advances from n to n+1: line currents at n+½ in `i`, source values at n+1; writes the nodes' voltages into `v`. */
+  advance(v: Float64Array, i: Float64Array, sources: Float64Array): void;
+}
 
 export interface LumpedSystem {
-  clusters: number;
-  /** Per cluster: offsets into the flat arrays below, and sizes. */
-  stateOffset: Int32Array;
-  stateSize: Int32Array;
-  inputOffset: Int32Array;
-  inputSize: Int32Array;
-  matrixOffset: Int32Array;
-  inputMatrixOffset: Int32Array;
-  nodeOffset: Int32Array;
-  nodeCount: Int32Array;
-  a: Float64Array;
-  b: Float64Array;
-  /** Input slots: a line-current index into the current array, U_SOURCE or U_ONE. */
-  inputSlot: Int32Array;
-  /** Global node index of each cluster node (the first nodeCount entries of each cluster's state). */
-  nodeIndex: Int32Array;
-  /** State of all clusters, [V nodes, i branches, vL branches, vC branches] per cluster. */
-  y: Float64Array;
-  /** Per lumped branch: cluster-state index of its current (for probes and energy checks). */
-  branchCurrentAt: Int32Array;
-  scratchY: Float64Array;
-  scratchU: Float64Array;
-  /** Which global nodes are handled here (the line loop leaves them alone). */
+  clusters: LumpedCluster[];
+  /** Slots the clusters own (the line kernel leaves them alone). */
   isLumpedNode: Uint8Array;
+  /** Lumped branches per cluster (indices into Ladder.lumped), for messages and checks. */
+  branches: number[][];
 }
 
 interface ClusterPlan {
@@ -47,234 +43,227 @@ interface ClusterPlan {
   branches: number[];
 }
 
-function planClusters(ladder: Ladder): ClusterPlan[] {
-  const owner = new Int32Array(ladder.nodes).fill(-1);
-  const clusters: ClusterPlan[] = [];
-  const touch = (node: number): number => {
-    if (owner[node] < 0) {
-      owner[node] = clusters.length;
-      clusters.push({ nodes: [node], branches: [] });
-    }
-    return owner[node];
+/** Nodes touched by lumped branches, joined into clusters by the branches between two nodes. */
+export function planClusters(ladder: Ladder): ClusterPlan[] {
+  const owner = new Map<number, number>();
+  const parent: number[] = [];
+  const find = (k: number): number => {
+    while (parent[k] !== k) k = parent[k] = parent[parent[k]];
+    return k;
   };
-  // Series parts join the clusters of their two nodes; walking the chain in order keeps it one pass.
-  const order = ladder.lumped.map((_, i) => i).sort((x, y) => nodeOf(ladder, x) - nodeOf(ladder, y));
-  for (const i of order) {
-    const br = ladder.lumped[i];
-    if (br.p !== EXTERNAL && br.q !== EXTERNAL) {
-      const c = touch(br.p);
-      if (owner[br.q] < 0) {
-        owner[br.q] = c;
-        clusters[c].nodes.push(br.q);
-      }
-      clusters[c].branches.push(i);
-    } else {
-      clusters[touch(br.p !== EXTERNAL ? br.p : br.q)].branches.push(i);
+  const touch = (slot: number) => {
+    if (!owner.has(slot)) {
+      owner.set(slot, parent.length);
+      parent.push(parent.length);
     }
+    return owner.get(slot)!;
+  };
+  for (const b of ladder.lumped) {
+    const ends = [b.p, b.q].filter((x) => x !== EXTERNAL).map(touch);
+    if (ends.length === 2) parent[find(ends[0])] = find(ends[1]);
   }
-  return clusters;
+  const byRoot = new Map<number, ClusterPlan>();
+  const slots = [...owner.keys()].sort((a, b) => a - b);
+  for (const s of slots) {
+    const r = find(owner.get(s)!);
+    if (!byRoot.has(r)) byRoot.set(r, { nodes: [], branches: [] });
+    byRoot.get(r)!.nodes.push(s);
+  }
+  ladder.lumped.forEach((b, k) => byRoot.get(find(owner.get(b.p !== EXTERNAL ? b.p : b.q)!))!.branches.push(k));
+  return [...byRoot.values()];
 }
 
-function nodeOf(ladder: Ladder, i: number): number {
-  const b = ladder.lumped[i];
-  return b.p !== EXTERNAL ? b.p : b.q;
+function isIdeal(p: { r: number; l: number; c?: number }): boolean {
+  return p.r === 0 && p.l === 0 && p.c === undefined;
 }
 
-function itemsOf(ladder: Ladder, plan: ClusterPlan): string {
-  return [...new Set(plan.branches.map((i) => ladder.lumped[i].item))].join(', ');
-}
-
-export function buildLumped(ladder: Ladder, dt: number, dc: DcState, initialSource: number): LumpedSystem {
+export function buildLumped(ladder: Ladder, dt: number, dc: DcState): LumpedSystem {
   const plans = planClusters(ladder);
-  const sizes = plans.map((p) => p.nodes.length + 3 * p.branches.length);
-  const inputs: number[][] = [];
-  const aParts: Float64Array[] = [];
-  const bParts: Float64Array[] = [];
-  const isLumpedNode = new Uint8Array(ladder.nodes);
-  const branchCurrentAt = new Int32Array(ladder.lumped.length);
-  let stateBase = 0;
-  plans.forEach((plan, ci) => {
-    const nc = plan.nodes.length;
-    const nb = plan.branches.length;
-    const nx = nc + nb;
-    const ns = sizes[ci];
-    const local = new Map(plan.nodes.map((g, a) => [g, a]));
-    const slots: number[] = [];
-    const slotOf = (s: number) => {
-      let k = slots.indexOf(s);
-      if (k < 0) k = slots.push(s) - 1;
-      return k;
-    };
-    // First pass to fix the input list, so the matrices can be sized.
-    plan.nodes.forEach((g) => {
-      if (g > 0 && ladder.isCell[g - 1]) slotOf(g);
-      if (g < ladder.nodes - 1 && ladder.isCell[g]) slotOf(g + 1);
+  const isLumpedNode = new Uint8Array(ladder.slots);
+  for (const p of plans) for (const s of p.nodes) isLumpedNode[s] = 1;
+  return { clusters: plans.map((p) => new LinearCluster(ladder, p, dt, dc)), isLumpedNode, branches: plans.map((p) => p.branches) };
+}
+
+/** A cluster of linear R–L–C branches. */
+export class LinearCluster implements LumpedCluster {
+  readonly nodes: Int32Array;
+  private readonly n: number;
+  private readonly nn: number;
+  private readonly minv: Float64Array;
+  private readonly rhs: Float64Array;
+  private readonly x: Float64Array;
+  /** Per node: (2C/Δt − G) for a centred node, else 0; line-current weight 2 or 1; history weight 1 or 0. */
+  private readonly hist: Float64Array;
+  private readonly lam: Float64Array;
+  private readonly kap: Float64Array;
+  /** Per node, the incident line-cell currents (CSR). */
+  private readonly incStart: Int32Array;
+  private readonly incCell: Int32Array;
+  private readonly incSign: Float64Array;
+  /** Companion branches (Z > 0) then ideal ones: local node of each end (−1 external), source index of an external p, rail of an external q. */
+  private readonly nc: number;
+  private readonly bp: Int32Array;
+  private readonly bq: Int32Array;
+  private readonly bSource: Int32Array;
+  private readonly bRail: Float64Array;
+  private readonly geq: Float64Array;
+  private readonly kL: Float64Array;
+  private readonly kC: Float64Array;
+  private readonly jh: Float64Array;
+  /** Branch state: current p → q, inductor voltage, capacitor voltage. */
+  readonly current: Float64Array;
+  private readonly vL: Float64Array;
+  private readonly vC: Float64Array;
+  /** Index into Ladder.lumped of each branch, in this cluster's order. */
+  readonly branchIndex: Int32Array;
+
+  constructor(ladder: Ladder, plan: ClusterPlan, dt: number, dc: DcState) {
+    const local = new Map(plan.nodes.map((s, a) => [s, a]));
+    const companion = plan.branches.filter((k) => !isIdeal(ladder.lumped[k].part));
+    const ideal = plan.branches.filter((k) => isIdeal(ladder.lumped[k].part));
+    const order = [...companion, ...ideal];
+    const nn = plan.nodes.length;
+    const nb = order.length;
+    this.nn = nn;
+    this.n = nn + ideal.length;
+    this.nc = companion.length;
+    this.nodes = Int32Array.from(plan.nodes);
+    this.branchIndex = Int32Array.from(order);
+    this.rhs = new Float64Array(this.n);
+    this.x = new Float64Array(this.n);
+    this.hist = new Float64Array(nn);
+    this.lam = new Float64Array(nn);
+    this.kap = new Float64Array(nn);
+    const incidence = plan.nodes.map((s) => ladder.ends.get(s) ?? []);
+    this.incStart = new Int32Array(nn + 1);
+    incidence.forEach((list, a) => (this.incStart[a + 1] = this.incStart[a] + list.length));
+    this.incCell = Int32Array.from(incidence.flat(), (e) => e.cell);
+    this.incSign = Float64Array.from(incidence.flat(), (e) => e.sign);
+    const lumped = order.map((k) => ladder.lumped[k]);
+    this.bp = Int32Array.from(lumped, (b) => (b.p === EXTERNAL ? -1 : local.get(b.p)!));
+    this.bq = Int32Array.from(lumped, (b) => (b.q === EXTERNAL ? -1 : local.get(b.q)!));
+    this.bSource = Int32Array.from(lumped, (b) => b.source);
+    this.bRail = Float64Array.from(lumped, (b) => b.part.rail);
+    this.kL = Float64Array.from(lumped, (b) => (2 * b.part.l) / dt);
+    this.kC = Float64Array.from(lumped, (b) => (b.part.c !== undefined ? dt / (2 * b.part.c) : 0));
+    this.geq = Float64Array.from(lumped, (b, k) => (k < this.nc ? 1 / (b.part.r + this.kL[k] + this.kC[k]) : 0));
+    this.jh = new Float64Array(nb);
+    this.current = Float64Array.from(order, (k) => dc.lumped[k]);
+    this.vL = new Float64Array(nb);
+    this.vC = Float64Array.from(lumped, (b, k) => {
+      if (b.part.c === undefined) return 0;
+      const vp = b.p !== EXTERNAL ? dc.v[b.p] : NaN;
+      const vq = b.q !== EXTERNAL ? dc.v[b.q] : b.part.rail;
+      return vp - vq - b.part.r * this.current[k];
     });
-    const uSource = slotOf(U_SOURCE);
-    const uOne = slotOf(U_ONE);
-    const nu = slots.length;
-    const m = new Float64Array(nx * nx);
-    const p = new Float64Array(nx * ns);
-    const q = new Float64Array(nx * nu);
-    const kL = new Float64Array(nb);
-    const kC = new Float64Array(nb);
-    plan.nodes.forEach((g, a) => {
-      isLumpedNode[g] = 1;
-      const c = ladder.nodeC[g];
-      const gl = ladder.nodeG[g];
-      const centred = c > 0 || gl > 0;
-      const w = centred ? 0.5 : 1;
-      if (centred) {
-        m[a * nx + a] = c / dt + gl / 2;
-        p[a * ns + a] = c / dt - gl / 2;
-      }
-      plan.branches.forEach((bi, k) => {
-        const br = ladder.lumped[bi];
-        const s = br.p === g ? 1 : br.q === g ? -1 : 0;
-        m[a * nx + nc + k] += w * s;
-        if (centred) p[a * ns + nc + k] -= w * s;
-      });
-      if (g > 0 && ladder.isCell[g - 1]) q[a * nu + slotOf(g)] = 1;
-      if (g < ladder.nodes - 1 && ladder.isCell[g]) q[a * nu + slotOf(g + 1)] = -1;
-    });
-    plan.branches.forEach((bi, k) => {
-      const br = ladder.lumped[bi];
-      const row = nc + k;
-      kL[k] = (2 * br.part.l) / dt;
-      kC[k] = br.part.c !== undefined ? dt / (2 * br.part.c) : 0;
-      if (br.p !== EXTERNAL) m[row * nx + local.get(br.p)!] += 1;
-      else q[row * nu + uSource] = -1;
-      if (br.q !== EXTERNAL) m[row * nx + local.get(br.q)!] -= 1;
-      else q[row * nu + uOne] = br.part.rail;
-      m[row * nx + row] = -(br.part.r + kL[k] + kC[k]);
-      p[row * ns + nc + k] = kC[k] - kL[k];
-      p[row * ns + nc + nb + k] = -1;
-      p[row * ns + nc + 2 * nb + k] = 1;
-      branchCurrentAt[bi] = stateBase + nc + k;
-    });
-    const minv = invert(m, nx);
-    if (!minv) {
+    const m = this.nodeMatrix(ladder, dt);
+    const inv = invert(m, this.n);
+    if (!inv) {
       throw new NetError([
         {
-          path: itemsOf(ladder, plan),
-          message:
-            'these parts leave a node without a unique voltage (a loop of ideal sources and zero-ohm parts, or a node with nothing defining it)',
+          path: [...new Set(lumped.map((b) => b.item))].join(', '),
+          message: 'these parts leave a node without a unique voltage (a loop of ideal sources and zero-ohm parts, or two ideal sources on one node)',
         },
       ]);
     }
-    const x = multiply(minv, p, nx, nx, ns);
-    const wq = multiply(minv, q, nx, nx, nu);
-    const a = new Float64Array(ns * ns);
-    const b = new Float64Array(ns * nu);
-    a.set(x);
-    b.set(wq);
-    for (let k = 0; k < nb; k++) {
-      const iRow = nc + k;
-      const vlRow = nc + nb + k;
-      const vcRow = nc + 2 * nb + k;
-      for (let j = 0; j < ns; j++) {
-        a[vlRow * ns + j] = kL[k] * x[iRow * ns + j];
-        a[vcRow * ns + j] = kC[k] * x[iRow * ns + j];
-      }
-      for (let j = 0; j < nu; j++) {
-        b[vlRow * nu + j] = kL[k] * wq[iRow * nu + j];
-        b[vcRow * nu + j] = kC[k] * wq[iRow * nu + j];
-      }
-      // vL(n+1) = 2L/Δt·(i(n+1) − i(n)) − vL(n);  vC(n+1) = vC(n) + Δt/(2C)·(i(n+1) + i(n))
-      a[vlRow * ns + iRow] -= kL[k];
-      a[vlRow * ns + vlRow] -= 1;
-      a[vcRow * ns + iRow] += kC[k];
-      a[vcRow * ns + vcRow] += 1;
-    }
-    aParts.push(a);
-    bParts.push(b);
-    inputs.push(slots);
-    stateBase += ns;
-  });
-
-  const n = plans.length;
-  const sys: LumpedSystem = {
-    clusters: n,
-    stateOffset: new Int32Array(n),
-    stateSize: Int32Array.from(sizes),
-    inputOffset: new Int32Array(n),
-    inputSize: Int32Array.from(inputs, (s) => s.length),
-    matrixOffset: new Int32Array(n),
-    inputMatrixOffset: new Int32Array(n),
-    nodeOffset: new Int32Array(n),
-    nodeCount: Int32Array.from(plans, (p) => p.nodes.length),
-    a: new Float64Array(aParts.reduce((s, x) => s + x.length, 0)),
-    b: new Float64Array(bParts.reduce((s, x) => s + x.length, 0)),
-    inputSlot: Int32Array.from(inputs.flat()),
-    nodeIndex: Int32Array.from(plans.flatMap((p) => p.nodes)),
-    y: new Float64Array(stateBase),
-    branchCurrentAt,
-    scratchY: new Float64Array(Math.max(0, ...sizes)),
-    scratchU: new Float64Array(Math.max(0, ...inputs.map((s) => s.length))),
-    isLumpedNode,
-  };
-  let so = 0, io = 0, mo = 0, bo = 0, no = 0;
-  for (let c = 0; c < n; c++) {
-    sys.stateOffset[c] = so;
-    sys.inputOffset[c] = io;
-    sys.matrixOffset[c] = mo;
-    sys.inputMatrixOffset[c] = bo;
-    sys.nodeOffset[c] = no;
-    sys.a.set(aParts[c], mo);
-    sys.b.set(bParts[c], bo);
-    so += sizes[c];
-    io += inputs[c].length;
-    mo += aParts[c].length;
-    bo += bParts[c].length;
-    no += plans[c].nodes.length;
+    this.minv = inv;
   }
-  setInitialState(sys, plans, ladder, dc, initialSource);
-  return sys;
-}
 
-function setInitialState(sys: LumpedSystem, plans: ClusterPlan[], ladder: Ladder, dc: DcState, source: number): void {
-  plans.forEach((plan, c) => {
-    const base = sys.stateOffset[c];
-    const nc = plan.nodes.length;
-    const nb = plan.branches.length;
-    plan.nodes.forEach((g, a) => (sys.y[base + a] = dc.v[g]));
-    plan.branches.forEach((bi, k) => {
-      const br = ladder.lumped[bi];
-      const i = dc.lumped[bi];
-      sys.y[base + nc + k] = i;
-      if (br.part.c !== undefined) {
-        const vp = br.p !== EXTERNAL ? dc.v[br.p] : source;
-        const vq = br.q !== EXTERNAL ? dc.v[br.q] : br.part.rail;
-        sys.y[base + nc + 2 * nb + k] = vp - vq - br.part.r * i;
-      }
+  /** The constant matrix: node capacitance and conductance, the companion conductances, the ideal branches' rows. */
+  private nodeMatrix(ladder: Ladder, dt: number): Float64Array {
+    const { n, nn } = this;
+    const m = new Float64Array(n * n);
+    this.nodes.forEach((s, a) => {
+      const c = ladder.nodeC[s];
+      const g = ladder.nodeG[s];
+      const centred = c > 0 || g > 0;
+      this.hist[a] = centred ? (2 * c) / dt - g : 0;
+      this.lam[a] = centred ? 2 : 1;
+      this.kap[a] = centred ? 1 : 0;
+      if (centred) m[a * n + a] += (2 * c) / dt + g;
     });
-  });
-}
+    for (let k = 0; k < this.nc; k++) {
+      const p = this.bp[k];
+      const q = this.bq[k];
+      const g = this.geq[k];
+      if (p >= 0) m[p * n + p] += g;
+      if (q >= 0) m[q * n + q] += g;
+      if (p >= 0 && q >= 0) {
+        m[p * n + q] -= g;
+        m[q * n + p] -= g;
+      }
+    }
+    for (let k = this.nc; k < this.bp.length; k++) {
+      const r = nn + k - this.nc;
+      const p = this.bp[k];
+      const q = this.bq[k];
+      if (p >= 0) m[p * n + r] = m[r * n + p] = 1;
+      if (q >= 0) m[q * n + r] = m[r * n + q] = -1;
+    }
+    return m;
+  }
 
-/** Advances every cluster from n to n+1, given line currents at n+½ in `current` and the source at n+1. */
-export function advanceLumped(sys: LumpedSystem, current: Float64Array, voltage: Float64Array, source: number): void {
-  const { y, a, b, scratchY: yn, scratchU: u, inputSlot, nodeIndex } = sys;
-  for (let c = 0; c < sys.clusters; c++) {
-    const so = sys.stateOffset[c];
-    const ns = sys.stateSize[c];
-    const io = sys.inputOffset[c];
-    const nu = sys.inputSize[c];
-    for (let j = 0; j < nu; j++) {
-      const slot = inputSlot[io + j];
-      u[j] = slot >= 0 ? current[slot] : slot === U_SOURCE ? source : 1;
+  advance(v: Float64Array, i: Float64Array, sources: Float64Array): void {
+    const { n, nn, rhs, x, nodes, kap, current, bp, bq, geq, jh } = this;
+    for (let a = 0; a < nn; a++) {
+      let sum = 0;
+      for (let e = this.incStart[a]; e < this.incStart[a + 1]; e++) sum += this.incSign[e] * i[this.incCell[e]];
+      rhs[a] = this.hist[a] * v[nodes[a]] + this.lam[a] * sum;
     }
-    let ao = sys.matrixOffset[c];
-    let bo = sys.inputMatrixOffset[c];
-    for (let r = 0; r < ns; r++) {
+    // companion branches: i(n+1) = geq·(vp − vq) + J, J = −h/Z, h = vC − vL + (Δt/2C − 2L/Δt)·i(n)
+    for (let k = 0; k < this.nc; k++) {
+      const ik = current[k];
+      const j = -geq[k] * (this.vC[k] - this.vL[k] + (this.kC[k] - this.kL[k]) * ik);
+      jh[k] = j;
+      const p = bp[k];
+      const q = bq[k];
+      if (p >= 0) {
+        rhs[p] -= j + kap[p] * ik;
+        if (q < 0) rhs[p] += geq[k] * this.bRail[k];
+      }
+      if (q >= 0) {
+        rhs[q] += j + kap[q] * ik;
+        if (p < 0) rhs[q] += geq[k] * sources[this.bSource[k]];
+      }
+    }
+    // ideal branches: their current is an unknown; their row says vp − vq = 0
+    for (let k = this.nc; k < bp.length; k++) {
+      const ik = current[k];
+      const p = bp[k];
+      const q = bq[k];
+      let known = 0;
+      if (p >= 0) rhs[p] -= kap[p] * ik;
+      else known -= sources[this.bSource[k]];
+      if (q >= 0) rhs[q] += kap[q] * ik;
+      else known += this.bRail[k];
+      rhs[nn + k - this.nc] = known;
+    }
+    const minv = this.minv;
+    for (let r = 0; r < n; r++) {
       let acc = 0;
-      for (let j = 0; j < ns; j++) acc += a[ao + j] * y[so + j];
-      for (let j = 0; j < nu; j++) acc += b[bo + j] * u[j];
-      yn[r] = acc;
-      ao += ns;
-      bo += nu;
+      const o = r * n;
+      for (let c = 0; c < n; c++) acc += minv[o + c] * rhs[c];
+      x[r] = acc;
     }
-    for (let r = 0; r < ns; r++) y[so + r] = yn[r];
-    const no = sys.nodeOffset[c];
-    for (let k = 0; k < sys.nodeCount[c]; k++) voltage[nodeIndex[no + k]] = y[so + k];
+    for (let a = 0; a < nn; a++) v[nodes[a]] = x[a];
+    this.updateBranches(sources);
+  }
+
+  /** Each branch's new current and its inductor and capacitor voltages (trapezoidal rule). */
+  private updateBranches(sources: Float64Array): void {
+    const { x, current, bp, bq } = this;
+    for (let k = 0; k < bp.length; k++) {
+      let inew: number;
+      if (k < this.nc) {
+        const vp = bp[k] >= 0 ? x[bp[k]] : sources[this.bSource[k]];
+        const vq = bq[k] >= 0 ? x[bq[k]] : this.bRail[k];
+        inew = this.geq[k] * (vp - vq) + this.jh[k];
+      } else inew = x[this.nn + k - this.nc];
+      const iold = current[k];
+      // vL(n+1) = 2L/Δt·(i(n+1) − i(n)) − vL(n);  vC(n+1) = vC(n) + Δt/(2C)·(i(n+1) + i(n))
+      this.vL[k] = this.kL[k] * (inew - iold) - this.vL[k];
+      this.vC[k] += this.kC[k] * (inew + iold);
+      current[k] = inew;
+    }
   }
 }

@@ -51,11 +51,28 @@ export type Signal =
 export type RouteItem =
   | { kind: 'line'; name: string; line: LineRLGC; length: number }
   | { kind: 'series'; name: string; part: Part }
-  | { kind: 'shunt'; name: string; parts: Part[] };
+  | { kind: 'shunt'; name: string; parts: Part[] }
+  | { kind: 'branch'; name: string; branches: Branch[] };
+
+/** A side route leaving the route at a branch item's node, ending at a receiver of its own. */
+export interface Branch {
+  route: RouteItem[];
+  receiver: NamedReceiver;
+}
+
+/** A receiver: parts from its node to rails, in parallel; no parts = an open end (an open stub). */
+export interface NamedReceiver {
+  name: string;
+  parts: Part[];
+}
+
+/** The main receiver's name when the net does not give one. */
+export const MAIN_RECEIVER = 'receiver';
 
 export type ProbeSpec =
   | { name: string; at: 'driver' }
-  | { name: string; at: 'receiver' }
+  /** At a receiver's node: `receiver` names it (absent = the main receiver at the end of `route`). */
+  | { name: string; at: 'receiver'; receiver?: string }
   | { name: string; at: 'line'; item: string; position: number }
   | { name: string; at: 'series'; item: string; side: 'in' | 'out' }
   | { name: string; at: 'shunt'; item: string };
@@ -73,9 +90,12 @@ export interface Net {
   title: string;
   description?: string;
   driver: { signal: Signal; resistance: number };
+  /** From the driver pin to the main receiver; branch items attach side routes (a tree, to any depth). */
   route: RouteItem[];
-  /** Parts from the receiver node to rails, in parallel; empty = open end. */
+  /** Parts from the main receiver's node to rails, in parallel; empty = open end. */
   receiver: Part[];
+  /** The main receiver's name (default MAIN_RECEIVER); every receiver's name is unique in the net. */
+  receiverName?: string;
   probes: ProbeSpec[];
   run: RunSettings;
 }

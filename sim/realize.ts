@@ -1,7 +1,8 @@
 // Frequency-dependent lines in the time domain: a line described by its exact Z'(jω), Y'(jω)
 // (skin effect, Djordjevic–Sarkar dielectric) is replaced, before discretizing, by a realisation
 // with a few R‖L sections in series and R–C branches in shunt, fitted over the band the run needs.
-import type { LineRLGC, Net, RouteItem } from './model.js';
+import type { LineRLGC, Net } from './model.js';
+import { mapRouteLines } from './route-tree.js';
 import { timeDomainRealisation, type TimeDomainRealisation } from './lines/freq-model.js';
 import { activityEnd, fastestEdge } from './signals.js';
 
@@ -51,11 +52,11 @@ export function realizeLine(line: LineRLGC, band: Band, terms?: { skinTerms: num
 /** The net with every wideband line realised for `band` (lines that already have their terms are kept). */
 export function realizeNet(net: Net, band: Band): { net: Net; fits: Map<string, TimeDomainRealisation> } {
   const fits = new Map<string, TimeDomainRealisation>();
-  const route: RouteItem[] = net.route.map((item) => {
-    if (item.kind !== 'line' || !item.line.wideband || item.line.series || item.line.shunt) return item;
-    const r = realizeLine(item.line, band);
+  const route = mapRouteLines(net.route, (line, item) => {
+    if (!line.wideband || line.series || line.shunt) return line;
+    const r = realizeLine(line, band);
     fits.set(item.name, r.fit);
-    return { ...item, line: r.line };
+    return r.line;
   });
   return { net: { ...net, route }, fits };
 }

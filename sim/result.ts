@@ -32,16 +32,28 @@ export interface LossRealisation {
   maxDielectricLossRelError: number;
 }
 
+/** Why Δt has the value it has: the rule that set it, as data (src/ words it). */
+export type DtRule =
+  /** The fastest edge of any source over cellsPerRise (`edge` Infinity: every source constant and no line). */
+  | { rule: 'edge'; edge: number; cellsPerRise: number }
+  /** Every source is constant: the longest path's one-way delay stands in for the rise time. */
+  | { rule: 'delay'; delay: number; cellsPerRise: number }
+  /** A segment at Courant 1: its delay in `cells` cells (no cell may be longer than one Δt of travel). */
+  | { rule: 'segment'; segment: string; delay: number; cells: number }
+  /** A constant source and no line at all: the duration in `steps` steps. */
+  | { rule: 'duration'; duration: number; steps: number };
+
 export interface Discretization {
   dt: number;
   steps: number;
   duration: number;
-  /** Total number of line cells in the route. */
+  /** Total number of line cells in the net. */
   cells: number;
+  /** Nodes of the ladder: every junction, part and receiver node and every segment's interior nodes. */
   nodes: number;
   segments: SegmentPlan[];
   /** Why Δt has the value it has (the limiting rule). */
-  dtReason: string;
+  dtRule: DtRule;
 }
 
 export interface ProbeRecord {
@@ -75,16 +87,46 @@ export function probeTraces(record: ProbeRecord): Float64Array[] {
   return record.names.map((_, p) => probeTrace(record, p));
 }
 
-/** Voltage along the route over time, decimated (see route-map.ts for the bound). */
+/** A route item's span along the way from the driver pin (m); lumped parts and branch points have from = to. */
+export interface RouteMapItem {
+  name: string;
+  kind: 'line' | 'series' | 'shunt' | 'branch';
+  from: number;
+  to: number;
+}
+
+/**
+ * One path of the net, from the driver pin to one receiver, as columns of the route map: what a view
+ * needs to draw that path's distance axis with its junctions marked.
+ */
+export interface RouteMapPath {
+  receiver: string;
+  /** Columns of RouteMapRecord.values along this path, from the driver pin to the receiver. */
+  columns: Int32Array;
+  /** Distance of each of those columns from the driver pin along the path (m), non-decreasing. */
+  positions: Float64Array;
+  /** The items on this path, in order, with their spans along it. */
+  items: RouteMapItem[];
+  /** Branch points on this path where other paths leave it: distance, branch item, receivers reached that way. */
+  junctions: { item: string; at: number; receivers: string[] }[];
+}
+
+/** Voltage along the net over time, decimated (see route-map.ts for the bound). */
 export interface RouteMapRecord {
-  /** Distance of each column from the driver pin (m). */
+  /**
+   * Distance of each column from the driver pin along the tree (m). For a net without branches the
+   * columns run along the route in order; with branches the main path's columns come first, then the
+   * branches' — read a path's columns through `paths`.
+   */
   positions: Float64Array;
   /** Time between rows (s); row r is at t = r·dtRow. */
   dtRow: number;
   /** Shape [rows, columns], volts. */
   values: NdArray<Float64Array>;
-  /** Every route item with the span it covers along the route (m); lumped parts have from = to. */
-  items: { name: string; kind: 'line' | 'series' | 'shunt'; from: number; to: number }[];
+  /** Every route item with the span it covers along its path from the driver pin (m). */
+  items: RouteMapItem[];
+  /** One per receiver, the main receiver's path first. */
+  paths: RouteMapPath[];
 }
 
 export interface SimResult {

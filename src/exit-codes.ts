@@ -6,6 +6,7 @@
 //      simulated, a bad command line, or outputs that cannot be written
 //   3  refused: the run would exceed a size limit; --force overrides
 import { NetError, RunRefused } from '../sim/errors.js';
+import { refusalLines } from './engine-text.js';
 import { OutputError } from './output/run.js';
 import { formatProblem, ScenarioError } from './scenario/problems.js';
 
@@ -35,10 +36,8 @@ export function describeFailure(e: unknown, file?: string): Failure {
     return { code: EXIT.badInput, lines: e.problems.map((p) => `${file ?? '(net)'} ${p.path || '(top level)'}: ${p.message}`) };
   }
   if (e instanceof RunRefused) {
-    const text = /\bforce overrides\b/.test(e.message)
-      ? e.message.replace(/\(?\bforce overrides( these limits)?\)?/, '(--force overrides$1)')
-      : `${e.message}\n  (--force overrides the size limits)`;
-    return { code: EXIT.refused, lines: (at + text).split('\n') };
+    const lines = refusalLines(e);
+    return { code: EXIT.refused, lines: [at + lines[0], ...lines.slice(1)] };
   }
   if (e instanceof OutputError || e instanceof UsageError) return { code: EXIT.badInput, lines: [at + e.message] };
   const stack = e instanceof Error ? (e.stack ?? `${e.name}: ${e.message}`) : String(e);

@@ -7,11 +7,12 @@ export { formatProblem, ScenarioError, type Problem } from './scenario/problems.
 
 // The engine.
 export { planRun, simulate, type SimulateOptions } from '../sim/simulate.js';
-export { NetError, RunRefused, type NetProblem } from '../sim/errors.js';
-export { DEFAULT_LIMITS, type RunLimits } from '../sim/limits.js';
-export type { LineRLGC, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
-export type { Discretization, ProbeRecord, SegmentPlan, SimResult } from '../sim/result.js';
 export { settledProbeLevels, type SettledLevels } from '../sim/settled.js';
+export { compileNet, type Circuit } from '../sim/circuit.js';
+export { NetError, RunDiverged, RunRefused, type NetProblem, type Overrun } from '../sim/errors.js';
+export { DEFAULT_LIMITS, type RunLimits } from '../sim/limits.js';
+export type { Branch, LineRLGC, NamedReceiver, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
+export type { Discretization, DtRule, ProbeRecord, RouteMapPath, RouteMapRecord, SegmentPlan, SimResult } from '../sim/result.js';
 
 // Outputs.
 export {

@@ -101,9 +101,8 @@ export function planSpectral(net: Net, opts: SpectralOptions): SpectralPlan {
   while (m > 1 && sizeFor(m) > maxPoints) m = Math.max(1, Math.floor(m / 2));
   const points = sizeFor(m);
   if (points > maxPoints) {
-    throw new RunRefused(
-      `spectral cross-check refused: ${samples} samples need an FFT of ${points} points (limit ${maxPoints}); use fewer samples or a larger sample interval`,
-    );
+    const fitSamples = Math.floor((maxPoints - 1) / pad) + 1;
+    throw new RunRefused([{ limit: 'fftPoints', needed: points, allowed: maxPoints, samples, fit: { samples: fitSamples >= 2 ? fitSamples : undefined } }], 'spectral cross-check');
   }
   const step = dtSample / m;
   const window = points * step;

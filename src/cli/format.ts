@@ -1,6 +1,7 @@
 // Human-readable text for the terminal: aligned tables and the per-scenario run summary.
 import type { RunReport } from '../output/run.js';
 import type { CheckResult } from '../measure/index.js';
+import { dtReasonText } from '../engine-text.js';
 import { formatSI } from '../units.js';
 import { alignColumns as table } from '../text/columns.js';
 
@@ -27,7 +28,7 @@ export function formatRunReport(report: RunReport): string {
   const lw = 9;
   const lines: string[] = [net.title || '(untitled)'];
   lines.push(...section('scenario', [report.scenario.file], lw));
-  lines.push(...section('Δt', [`${si(d.dt, 's')}  (${d.dtReason})`], lw));
+  lines.push(...section('Δt', [`${si(d.dt, 's')}  (${dtReasonText(d.dtRule)})`], lw));
   if (d.segments.length) {
     const rows = d.segments.map((s) => [s.name, si(s.length, 'm'), `${s.cells} cells`, `Courant ${s.courant.toFixed(4)}`]);
     lines.push(...section('segments', table(rows, ['l', 'r', 'r', 'l']), lw));

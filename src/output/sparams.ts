@@ -59,7 +59,7 @@ export function exportGrid(net: Net, options: Pick<SparamsRunOptions, 'grid' | '
   if (!(g.fmax > 0)) throw new UsageError(`the top frequency must be > 0 (got ${g.fmax})`);
   if (!(Number.isInteger(g.points) && g.points >= 2)) throw new UsageError(`the number of points must be a whole number ≥ 2 (got ${g.points})`);
   if (g.spacing === 'log' && g.fmin !== undefined && !(g.fmin > 0 && g.fmin < g.fmax)) throw new UsageError('a log grid needs 0 < fmin < fmax');
-  if (g.points > MAX_GRID_POINTS) throw new RunRefused(`${g.points} frequency points exceed the limit of ${MAX_GRID_POINTS}; ask for fewer points`);
+  if (g.points > MAX_GRID_POINTS) throw new RunRefused([{ limit: 'frequencyPoints', needed: g.points, allowed: MAX_GRID_POINTS, fit: { points: MAX_GRID_POINTS } }], 'S-parameter export');
   return g;
 }
 

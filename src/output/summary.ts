@@ -12,6 +12,7 @@ import type { Net } from '../../sim/model.js';
 import { probeTraces, type Discretization, type ProbeRecord, type SegmentPlan } from '../../sim/result.js';
 import { probeStats, type CrossingLevel, type ProbeStats } from './crossing.js';
 import { crossingLevels, netSettledLevels } from './net-levels.js';
+import { dtReasonText } from '../engine-text.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 
 /** Bumped when a core section changes shape incompatibly. */
@@ -45,7 +46,8 @@ export type SummarySegment = Omit<SegmentPlan, 'z0'> & {
   z0HighFrequency: number;
 };
 
-export type SummaryDiscretization = Omit<Discretization, 'segments'> & { segments: SummarySegment[] };
+/** The discretization as summary.json holds it: the engine's plan, labelled segments, and the Δt rule in words. */
+export type SummaryDiscretization = Omit<Discretization, 'segments'> & { segments: SummarySegment[]; dtReason: string };
 
 export interface Summary {
   format: number;
@@ -93,7 +95,7 @@ export function buildSummary(input: SummaryInput): Summary {
     format: SUMMARY_FORMAT,
     tool: input.tool ?? toolInfo(),
     scenario: { ...input.scenario },
-    discretization: { ...input.discretization, segments: labelledSegments(input.discretization.segments, input.net) },
+    discretization: { ...input.discretization, segments: labelledSegments(input.discretization.segments, input.net), dtReason: dtReasonText(input.discretization.dtRule) },
     record: { samples, dtSample: record.dtSample, end: (samples - 1) * record.dtSample },
     probes,
   };

@@ -6,8 +6,10 @@
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
 import { RunRefused } from '../../sim/errors.js';
-import { DEFAULT_LIMITS, type RunLimits } from '../../sim/limits.js';
+import type { RunLimits } from '../../sim/limits.js';
 import { planRun, simulate } from '../../sim/simulate.js';
+import { AdvisedRefusal } from '../engine-text.js';
+import { formatSI } from '../units.js';
 import { routeDelay } from '../../sim/discretize.js';
 import { readScenarioFile, writeOutputFolder, type LoadedScenario } from './run.js';
 import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from '../views/tdr.js';
@@ -54,7 +56,7 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
   const scenario = await readScenarioFile(file);
   const rise = options.rise ?? defaultTdrRise(scenario.net);
   const net = tdrNet(scenario.net, { rise, z0: options.z0 });
-  if (!options.force) refuseWithAdvice(net, rise, options.limits);
+  if (!options.force) refuseWithAdvice(scenario.net, { rise, z0: options.z0 }, options.limits);
 
   options.onPhase?.('simulate');
   const t1 = performance.now();
@@ -75,19 +77,40 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
 }
 
 /**
- * Throws RunRefused when the TDR run would exceed the size limits, adding the slower step that would
- * fit: the work grows about as 1/t_r² (cells ∝ 1/t_r and steps ∝ 1/t_r), so t_r·√(work/limit) fits.
+ * Throws a refusal when the TDR run would exceed the size limits, with a slower step that would fit:
+ * the work grows about as 1/t_r² (cells ∝ 1/t_r and steps ∝ 1/t_r); the suggestion starts from
+ * t_r·√(work/limit) and is checked against the limits itself (the duration and cellsPerRise are the
+ * TDR's own choices, so advice about them is left out).
  */
-function refuseWithAdvice(net: Net, rise: number, limits?: Partial<RunLimits>): void {
-  const { plan, refusal } = planRun(net, { limits });
-  if (!refusal) return;
-  const max = { ...DEFAULT_LIMITS, ...limits }.maxCellSteps;
-  const factor = Math.max(1, Math.sqrt((plan.steps * plan.nodes) / max)) * 1.1;
-  const e = Math.floor(Math.log10(rise * factor)) - 1;
-  const suggested = Math.ceil((rise * factor) / 10 ** e) * 10 ** e;
-  // the run's duration is the TDR's own choice: drop advice about it
-  const lines = refusal.replace(/a duration up to \S+ s would fit, or lower/, 'lower').split('\n');
-  const advice = `  a slower TDR step would fit: --rise ${Number((suggested * 1e12).toPrecision(3))}ps or more (the resolution coarsens in proportion)`;
-  lines.splice(Math.max(1, lines.length - 1), 0, advice);
-  throw new RunRefused(lines.join('\n'));
+function refuseWithAdvice(original: Net, opts: { rise: number; z0?: number }, limits?: Partial<RunLimits>): void {
+  const rise = opts.rise;
+  const refused = refusalOf(tdrNet(original, opts), limits);
+  if (!refused) return;
+  const work = refused.over.find((o) => o.limit === 'cellSteps' || o.limit === 'nodes');
+  const ratio = work ? work.needed / work.allowed : 1;
+  let suggested = rise * Math.max(1.1, Math.sqrt(ratio) * 1.05);
+  let fits = false;
+  for (let k = 0; k < 40 && !fits; k++) {
+    suggested = niceUp(suggested);
+    fits = !refusalOf(tdrNet(original, { ...opts, rise: suggested }), limits);
+    if (!fits) suggested *= 1.25;
+  }
+  const advice = fits ? [`a slower TDR step would fit: --rise ${formatSI(suggested, 's', 3)} or more (the resolution coarsens in proportion)`] : [];
+  throw new AdvisedRefusal(refused.over, refused.context, { omit: ['duration', 'cellsPerRise'], advice });
+}
+
+function refusalOf(net: Net, limits?: Partial<RunLimits>): RunRefused | undefined {
+  try {
+    planRun(net, { limits });
+    return undefined;
+  } catch (e) {
+    if (e instanceof RunRefused) return e;
+    throw e;
+  }
+}
+
+/** Rounded up to two significant digits. */
+function niceUp(x: number): number {
+  const e = Math.floor(Math.log10(x)) - 1;
+  return Math.ceil(x / 10 ** e - 1e-9) * 10 ** e;
 }

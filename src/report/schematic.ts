@@ -167,6 +167,19 @@ function shuntBlock(item: Extract<RouteItem, { kind: 'shunt' }>): Block {
   return { width: w, svg };
 }
 
+/** A branch point, drawn as a junction dot with the receivers its side routes lead to (the tree drawing is not done yet). */
+function branchBlock(item: Extract<RouteItem, { kind: 'branch' }>): Block {
+  const details = item.branches.map((b) => `→ ${b.receiver.name}`);
+  const w = widthFor([item.name, 'branch', ...details], 70);
+  const svg =
+    wire(0, w) +
+    `<circle cx="${w / 2}" cy="${Y}" r="4.5" fill="${STROKE}"/>` +
+    `<line x1="${w / 2}" y1="${Y}" x2="${w / 2}" y2="${Y + 22}" stroke="${STROKE}" stroke-width="2" stroke-dasharray="4 3"/>` +
+    text(w / 2, Y - 16, item.name, { bold: true }) +
+    labels(w / 2, Y + 40, ['branch', ...details]);
+  return { width: w, svg };
+}
+
 function receiverBlock(parts: Part[]): Block {
   if (parts.length === 0) {
     const w = widthFor(['receiver', 'open end'], 70);
@@ -190,6 +203,8 @@ function blockFor(item: RouteItem): Block {
       return seriesBlock(item);
     case 'shunt':
       return shuntBlock(item);
+    case 'branch':
+      return branchBlock(item);
   }
 }
 
@@ -198,7 +213,7 @@ export function routeSvg(net: Net): string {
   const blocks = [driverBlock(net), ...net.route.map(blockFor), receiverBlock(net.receiver)];
   const rows = Math.max(
     3,
-    ...net.route.map((i) => (i.kind === 'shunt' ? 1 + i.parts.length : i.kind === 'line' ? 3 : 2)),
+    ...net.route.map((i) => (i.kind === 'shunt' ? 1 + i.parts.length : i.kind === 'branch' ? 1 + i.branches.length : i.kind === 'line' ? 3 : 2)),
     1 + net.receiver.length,
   );
   const height = Y + 104 + rows * (FONT + 4) + 8;

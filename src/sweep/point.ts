@@ -1,7 +1,7 @@
 // One sweep point: apply its values to the scenario, validate, simulate, measure. The same function
 // runs in the main thread (--jobs 1) and in every worker, so a point's row does not depend on where
 // it ran.
-import { NetError, RunRefused, type NetProblem } from '../../sim/errors.js';
+import { NetError, RunRefused, type NetProblem, type Overrun } from '../../sim/errors.js';
 import { simulate } from '../../sim/simulate.js';
 import { ScenarioError, type Problem } from '../scenario/problems.js';
 import { pointValues } from './columns.js';
@@ -27,13 +27,13 @@ export function evaluatePoint(plan: SweepPlan, i: number, opts: PointOptions = {
 export type WireError =
   | { kind: 'scenario'; problems: Problem[]; warnings: Problem[] }
   | { kind: 'net'; problems: NetProblem[] }
-  | { kind: 'refused'; message: string }
+  | { kind: 'refused'; over: Overrun[]; context?: string }
   | { kind: 'other'; name: string; message: string; stack?: string };
 
 export function toWire(e: unknown): WireError {
   if (e instanceof ScenarioError) return { kind: 'scenario', problems: e.problems, warnings: e.warnings };
   if (e instanceof NetError) return { kind: 'net', problems: e.problems };
-  if (e instanceof RunRefused) return { kind: 'refused', message: e.message };
+  if (e instanceof RunRefused) return { kind: 'refused', over: e.over, context: e.context };
   const err = e instanceof Error ? e : new Error(String(e));
   return { kind: 'other', name: err.name, message: err.message, stack: err.stack };
 }
@@ -45,7 +45,7 @@ export function fromWire(w: WireError): Error {
     case 'net':
       return new NetError(w.problems);
     case 'refused':
-      return new RunRefused(w.message);
+      return new RunRefused(w.over, w.context);
     default: {
       const e = new Error(w.message);
       e.name = w.name;
@@ -59,7 +59,7 @@ export function fromWire(w: WireError): Error {
 export function annotatePointError(e: unknown, label: string): Error {
   if (e instanceof ScenarioError) return e; // its problems already name the point
   if (e instanceof NetError) return new NetError(e.problems.map((p) => ({ path: p.path, message: `${p.message} (${label})` })));
-  if (e instanceof RunRefused) return new RunRefused(`${label}: ${e.message}`);
+  if (e instanceof RunRefused) return new RunRefused(e.over, e.context ? `${label}, ${e.context}` : label);
   const err = e instanceof Error ? e : new Error(String(e));
   const out = new Error(`${label}: ${err.message}`);
   out.name = err.name;

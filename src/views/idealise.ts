@@ -22,6 +22,7 @@
 import { attenuationDbPerM, losslessZ0 } from '../../sim/lines/freq-model.js';
 import { DB_PER_NEPER } from '../../sim/lines/constants.js';
 import type { Net, Part, RouteItem, Signal } from '../../sim/model.js';
+import { isBranched } from '../../sim/route-tree.js';
 import { fastestEdge as fastestEdgeOf, rampDuration } from '../../sim/signals.js';
 import type { SourceEdge } from './lattice.js';
 import { formatSi } from '../render/ticks.js';
@@ -188,6 +189,9 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
   const sig = signalEdges(net.driver.signal, duration);
   if ('refusal' in sig) return { net, notes, refusals: [sig.refusal], edges: [], horizon: duration };
   if (sig.note) notes.push(sig.note);
+  if (isBranched(net)) {
+    return { net, notes, refusals: ['the route branches: the lattice is drawn along one unbranched route (a lattice along one path of a tree is not done yet)'], edges: sig.edges, horizon: duration };
+  }
   const rise = fastestEdgeOf(net.driver.signal);
   const window = Math.max(0, duration - sig.edges[0].time);
 
@@ -263,7 +267,7 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
       // an open series part would cut the route: the lattice then has nothing to show past it
       if (p === null) refusals.push(`series part '${it.name}' looks like an open on this time scale: no wave passes it`);
       else if (p) route.push({ ...it, part: p });
-    } else {
+    } else if (it.kind === 'shunt') {
       const env = parallel(zLeftOf(i), zRightOf(i));
       const parts: Part[] = [];
       it.parts.forEach((p, k) => {

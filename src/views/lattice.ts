@@ -13,8 +13,10 @@
 // The voltage anywhere is the DC level before the step plus the sum of the waves that have passed.
 // Linearity makes rails (termination voltages) only a DC matter: they set the levels before and after
 // the step, and are ground for the waves.
+import { compileNet } from '../../sim/circuit.js';
 import { defaultDuration } from '../../sim/discretize.js';
 import type { Net, Part, RouteItem } from '../../sim/model.js';
+import { isBranched } from '../../sim/route-tree.js';
 import { rampDuration } from '../../sim/signals.js';
 
 export interface LatticeOptions {
@@ -179,7 +181,7 @@ export function latticeLimitations(net: Net): string[] {
     } else if (item.kind === 'series') {
       const r = partReason(`series part '${item.name}'`, item.part);
       if (r) reasons.push(r);
-    } else {
+    } else if (item.kind === 'shunt') {
       item.parts.forEach((p, i) => {
         const r = partReason(`shunt '${item.name}'${item.parts.length > 1 ? ` (part ${i + 1})` : ''}`, p);
         if (r) reasons.push(r);
@@ -191,6 +193,7 @@ export function latticeLimitations(net: Net): string[] {
     if (r) reasons.push(r);
   });
   if (lines === 0) reasons.push('the route has no line segment: there is nothing for waves to travel on');
+  if (isBranched(net)) reasons.push('the route branches: this view draws one unbranched route (branched nets are not drawn yet)');
   return reasons;
 }
 
@@ -310,7 +313,7 @@ function dcLevels(net: Net, vs: number, route: readonly RouteItem[]): DcLevels {
     } else if (it.kind === 'series') {
       cur.seriesAfter = Math.max(it.part.r, R_MIN);
       nodes.push({ g: 0, j: 0 });
-    } else {
+    } else if (it.kind === 'shunt') {
       for (const p of it.parts) if (p.c === undefined) shuntOn(cur, p);
     }
   }
@@ -463,7 +466,7 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
   // every edge launches V⁺ in proportion to its step (the Thevenin divider is linear in the source)
   const edges: readonly SourceEdge[] = options.edges ?? [{ time: t50, step: dv }];
   const launchPerVolt = dv === 0 ? 0 : amplitude / dv;
-  const horizon = options.horizon ?? net.run.duration ?? defaultDuration(net);
+  const horizon = options.horizon ?? net.run.duration ?? defaultDuration(compileNet(net));
   const floor = Math.min(...edges.map((e) => Math.abs(e.step * launchPerVolt))) * (options.floor ?? 1e-3);
   const maxBounces = options.maxBounces ?? 32;
   const maxWaves = options.maxWaves ?? 4000;

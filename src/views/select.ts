@@ -3,8 +3,10 @@
 //
 // The TDR profile is not a view of a run: it drives the route from a matched step source in place of the
 // driver, which is a different simulation, so it is its own command (`ladderwave tdr`).
+import { compileNet } from '../../sim/circuit.js';
 import { defaultDuration } from '../../sim/discretize.js';
 import type { Net } from '../../sim/model.js';
+import { allItems } from '../../sim/route-tree.js';
 import { eyeUnavailableReason } from './eye.js';
 import { idealiseForLattice } from './idealise.js';
 
@@ -95,7 +97,7 @@ export interface ViewPlan {
 
 /** Why the voltage along the route cannot be drawn (map, frames), or null. */
 export function routeMapUnavailableReason(net: Net): string | null {
-  const length = net.route.reduce((a, it) => a + (it.kind === 'line' ? it.length : 0), 0);
+  const length = allItems(net.route).reduce((a, it) => a + (it.kind === 'line' ? it.length : 0), 0);
   return length > 0 ? null : 'the route has no line segment, so there is no distance along it to draw';
 }
 
@@ -114,7 +116,7 @@ export function planViews(net: Net, requested: readonly ViewName[], frames = 0):
       }
     }
     if (v === 'bounce') {
-      const refusals = idealiseForLattice(net, net.run.duration ?? defaultDuration(net)).refusals;
+      const refusals = idealiseForLattice(net, net.run.duration ?? defaultDuration(compileNet(net))).refusals;
       if (refusals.length) partial.push({ view: v, reason: `no lattice drawn (only the simulated waveforms at both ends): ${refusals.join('; ')}` });
     }
     if (v === 'eye') {

@@ -16,9 +16,11 @@
 // Resolution: two discontinuities closer than half the step's 10–90 % rise time in round-trip time
 // merge, i.e. d_min = v·t_r/4 (HP 54753A user's guide, "TDR Fundamentals", rise time and distance
 // resolution).
+import { NetError } from '../../sim/errors.js';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { Net } from '../../sim/model.js';
 import { probeTrace, type SimResult } from '../../sim/result.js';
+import { isBranched } from '../../sim/route-tree.js';
 import { rampDuration, signalFunction } from '../../sim/signals.js';
 import type { Frame } from '../render/frame.js';
 import { drawLinePlot } from '../render/lineplot.js';
@@ -68,6 +70,9 @@ function segmentsOf(net: Net) {
  */
 export function tdrNet(net: Net, opts: TdrOptions): Net {
   if (!(opts.rise > 0) || !Number.isFinite(opts.rise)) throw new RangeError(`tdrNet: rise must be a positive time, got ${opts.rise}`);
+  if (isBranched(net)) {
+    throw new NetError([{ path: 'route', message: 'the TDR profile is drawn along an unbranched route; this route branches (a profile along one path is not done yet)' }]);
+  }
   const segs = segmentsOf(net);
   const z0 = opts.z0 ?? DEFAULT_TDR_Z0;
   if (!(z0 > 0) || !Number.isFinite(z0)) throw new RangeError(`tdrNet: z0 must be a positive resistance, got ${z0}`);
@@ -165,7 +170,7 @@ export function tdrProfile(net: Net, result: SimResult): TdrProfile {
         rt += 2 * s.delay;
       }
       x += it.length;
-    } else {
+    } else if (it.kind !== 'branch') {
       places.push({ name: it.name, kind: it.kind, distance: x, time: rt });
     }
   }

@@ -1,15 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { solveDc } from '../../sim/dc.js';
-import { discretize } from '../../sim/discretize.js';
 import { buildLadder } from '../../sim/ladder.js';
-import { simulate } from '../../sim/simulate.js';
+import { prepareRun, simulate } from '../../sim/simulate.js';
 import type { Net } from '../../sim/model.js';
 import { lineOf, net, part, stepSignal } from '../support/nets.js';
 import { probeTrace } from '../../sim/result.js';
 
 function dcOf(n: Net, source: number) {
-  const ladder = buildLadder(n, discretize(n));
-  return { ladder, dc: solveDc(ladder, source) };
+  const run = prepareRun(n);
+  const ladder = buildLadder(run.circuit, run.plan);
+  return { ladder, dc: solveDc(ladder, Float64Array.of(source)) };
 }
 
 describe('DC operating point', () => {
@@ -44,7 +44,7 @@ describe('DC operating point', () => {
       expect(Math.abs(dc.v[k] - exact) / exact).toBeLessThan(5e-4);
     }
     // Kirchhoff's current law at the receiver node: the last cell's current feeds RL and the node's half-cell G
-    expect(dc.branch[cells - 1]).toBeCloseTo(dc.v[cells] * (1 / rl + ladder.nodeG[cells]), 12);
+    expect(dc.i[cells]).toBeCloseTo(dc.v[cells] * (1 / rl + ladder.nodeG[cells]), 12);
   });
 
   // Split (Thevenin) termination 220 Ω to 3.3 V and 330 Ω to ground: open-circuit voltage
@@ -96,5 +96,48 @@ describe('DC operating point', () => {
       receiver: [part({ r: 0 })],
     });
     expect(() => simulate(n)).toThrow(/ideal sources or rails/);
+  });
+});
+
+describe('DC start on the node graph', () => {
+  // An ideal (0 Ω) source through a 0 Ω series part onto a lossless line: the source fixes every node
+  // of the route at its level (Kirchhoff's voltage law: no drop across zero resistances), and the
+  // current is what the receiver draws, 2 V / 100 Ω (Ohm's law).
+  it('holds a 0 Ω driver, a 0 Ω series part and a lossless line at the source level, with the load current everywhere', () => {
+    const n = net({
+      signal: stepSignal(0, 1e-9, 5e-9, 2),
+      rs: 0,
+      route: [
+        { kind: 'series', name: 'r0', part: part({ r: 0 }) },
+        { kind: 'line', name: 't', line: lineOf(50, 5e-9), length: 0.1 },
+      ],
+      receiver: [part({ r: 100 })],
+    });
+    const { ladder, dc } = dcOf(n, 2);
+    for (let k = 0; k < ladder.slots; k++) expect(dc.v[k]).toBe(2);
+    const seg = ladder.segments[0];
+    for (let j = 0; j < seg.cells; j++) expect(dc.i[seg.base + 1 + j]).toBeCloseTo(0.02, 15);
+    // the source and the 0 Ω part carry the same current as the load
+    expect(ladder.lumped.map((b) => b.role)).toEqual(['driver', 'series', 'receiver']);
+    for (const i of dc.lumped) expect(i).toBeCloseTo(0.02, 15);
+  });
+
+  // A line of R′ only (G′ = 0) between a source and a load is the resistor R′ℓ: the node voltages fall
+  // linearly along it (Ohm's law), and the run starts there and stays.
+  it('drops linearly along a series-resistive line and starts the run stationary', () => {
+    const n = net({
+      signal: stepSignal(0, 1e-9, 5e-9, 1),
+      rs: 10,
+      route: [{ kind: 'line', name: 't', line: lineOf(50, 5e-9, 100), length: 0.5 }],
+      receiver: [part({ r: 40 })],
+      duration: 3e-9,
+      probes: [{ name: 'mid', at: 'line', item: 't', position: 0.25 }],
+    });
+    const { ladder, dc } = dcOf(n, 1);
+    const current = 1 / (10 + 50 + 40);
+    const cells = ladder.segments[0].cells;
+    for (let k = 0; k <= cells; k++) expect(dc.v[k]).toBeCloseTo(1 - current * (10 + (50 * k) / cells), 13);
+    const mid = probeTrace(simulate(n).record, 0);
+    for (const x of mid) expect(x).toBeCloseTo(1 - current * (10 + 25), 12);
   });
 });

@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { discretize } from '../../sim/discretize.js';
-import { buildLadder } from '../../sim/ladder.js';
+import { compileNet } from '../../sim/circuit.js';
+import { discretize as discretizeCircuit } from '../../sim/discretize.js';
+import { buildLadder as buildCircuitLadder } from '../../sim/ladder.js';
+import type { Net } from '../../sim/model.js';
+import type { Discretization } from '../../sim/result.js';
 import { lineOf, net, part, stepSignal } from '../support/nets.js';
+
+const discretize = (n: Net) => discretizeCircuit(compileNet(n));
+const buildLadder = (n: Net, plan: Discretization) => buildCircuitLadder(compileNet(n), plan);
 
 describe('ladder cells', () => {
   // Per-unit-length scaling, a fact of the trade: 1 000 Ω spread over 1 m is 1 Ω per mm, so a cell of
@@ -14,14 +20,15 @@ describe('ladder cells', () => {
     expect(plan.segments[0].cells).toBe(1000);
     expect(plan.segments[0].cellLength).toBeCloseTo(1e-3, 15);
     const ladder = buildLadder(n, plan);
-    expect(ladder.cellR[0]).toBeCloseTo(1, 12);
-    expect(ladder.cellL[500]).toBeCloseTo(250e-12, 22);
+    const seg = ladder.segments[0];
+    expect(seg.line.r * seg.cellLength).toBeCloseTo(1, 12);
+    expect(seg.line.l * seg.cellLength).toBeCloseTo(250e-12, 22);
     // interior nodes carry a whole cell's C and G, the two ends half a cell's
     expect(ladder.nodeC[1]).toBeCloseTo(100e-15, 25);
     expect(ladder.nodeC[0]).toBeCloseTo(50e-15, 25);
     expect(ladder.nodeG[1000]).toBeCloseTo(1e-6, 15);
     const sum = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
-    expect(sum(ladder.cellR)).toBeCloseTo(1000, 8);
+    expect(seg.cells * seg.line.r * seg.cellLength).toBeCloseTo(1000, 8);
     expect(sum(ladder.nodeC)).toBeCloseTo(100e-12, 20);
   });
 
@@ -41,10 +48,16 @@ describe('ladder cells', () => {
     const ladder = buildLadder(n, plan);
     const [a, b] = plan.segments;
     expect(ladder.nodeC[a.cells]).toBeCloseTo((5e-9 / 50) * a.cellLength / 2 + (5e-9 / 100) * b.cellLength / 2, 24);
-    expect(ladder.isCell[a.cells + b.cells]).toBe(0);
-    expect(ladder.items.get('r1')).toMatchObject({ start: a.cells + b.cells, end: a.cells + b.cells + 1 });
-    expect(ladder.items.get('via')).toMatchObject({ start: a.cells + b.cells + 1 });
+    // the series part joins the last line node to a node of its own, which the shunt hangs on
+    const r1 = ladder.lumped.find((l) => l.item === 'r1')!;
+    expect([r1.p, r1.q]).toEqual([a.cells + b.cells, a.cells + b.cells + 1]);
+    expect(ladder.lumped.find((l) => l.item === 'via')!.p).toBe(a.cells + b.cells + 1);
     expect(ladder.lumped.map((l) => l.role)).toEqual(['driver', 'series', 'shunt', 'receiver']);
+    // the junction of a and b meets the last cell of a (flowing in) and the first of b (flowing out)
+    expect(ladder.ends.get(a.cells)).toEqual([
+      { cell: a.cells, sign: 1 },
+      { cell: a.cells + 1, sign: -1 },
+    ]);
   });
 });
 

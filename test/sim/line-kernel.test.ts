@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { advanceLineCells, type LineKernel } from '../../sim/line-kernel.js';
 import { buildLossySegments } from '../../sim/lossy-segment.js';
 
-const noLossySegments = () => buildLossySegments([], 1, { v: new Float64Array(0), branch: new Float64Array(0), lumped: new Float64Array(0) });
+const noLossySegments = () => buildLossySegments([], 1, { v: new Float64Array(0), i: new Float64Array(0), lumped: new Float64Array(0) });
 
 // Hand-computed leapfrog steps of the telegrapher equations on a three-node, two-cell ladder
 // (C. R. Paul, Analysis of Multiconductor Transmission Lines, FDTD update equations).
@@ -16,10 +16,14 @@ function kernel(v: number[], i: number[], a: number, b: number, c: number, d: nu
     segB: Float64Array.from([b]),
     segC: Float64Array.from([c]),
     segD: Float64Array.from([d]),
-    // node 0 is held by the lumped system; the open far end is a half cell
+    ghosts: new Int32Array(0),
+    // node 0 is held by the lumped system; the open far end is a half cell with the last cell flowing in
     joinNode: Int32Array.from([v.length - 2]),
     joinC: Float64Array.from([1]),
     joinD: Float64Array.from([joinD]),
+    joinStart: Int32Array.from([0, 1]),
+    joinCell: Int32Array.from([v.length - 2]),
+    joinSign: Float64Array.from([1]),
     lossy: noLossySegments(),
   };
 }

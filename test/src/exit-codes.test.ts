@@ -23,11 +23,17 @@ describe('exit codes and error lines', () => {
     expect(f).toEqual({ code: 2, lines: ["n.json probes[1]: no route item named 'x'"] });
   });
 
-  it('reports a refused run with exit 3 and names --force', () => {
-    const f = describeFailure(new RunRefused('run refused before starting:\n  too many steps\n  (force overrides these limits)'), 'h.json');
+  it('reports a refused run with exit 3, one line per limit with what would fit, and names --force', () => {
+    const over = { limit: 'cellSteps', needed: 6e10, allowed: 3e10, steps: 200000, nodes: 300000, fit: { duration: 2.0004e-6, cellsPerRise: 14 } } as const;
+    const f = describeFailure(new RunRefused([over]), 'h.json');
     expect(f.code).toBe(EXIT.refused);
-    expect(f.lines).toEqual(['h.json: run refused before starting:', '  too many steps', '  (--force overrides these limits)']);
-    expect(describeFailure(new RunRefused('too big'), 'h.json').lines.join('\n')).toContain('--force');
+    expect(f.lines).toEqual([
+      'h.json: run refused before starting:',
+      '  200000 steps × 300000 nodes and lumped work = 6.00e+10 cell-steps (limit 3.00e+10); a duration up to 2 µs would fit, or run.cellsPerRise 14 or less',
+      '  (--force overrides these limits)',
+    ]);
+    const records = { limit: 'recordBytes', needed: 3e9, allowed: 2 ** 31, probes: 2, samples: 1.875e8, fit: {} } as const;
+    expect(describeFailure(new RunRefused([records]), 'h.json').lines.join('\n')).toContain('--force');
   });
 
   it('treats output and usage errors as exit 2 and anything else as a bug (exit 1, with the stack)', () => {

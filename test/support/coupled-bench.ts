@@ -5,6 +5,7 @@
 import type { CoupledLine } from '../../sim/coupled/line.js';
 import { advanceCoupledSection, buildCoupledSection, type CoupledSection } from '../../sim/coupled/kernel.js';
 import { advanceEndGroup, buildEndGroup, type EndGroup } from '../../sim/coupled/ends.js';
+import { compileNet } from '../../sim/circuit.js';
 import { buildLadder } from '../../sim/ladder.js';
 import { advanceLineCells, buildLineKernel, type LineKernel } from '../../sim/line-kernel.js';
 import type { LineRLGC } from '../../sim/model.js';
@@ -144,10 +145,10 @@ export function singleLineCells(line: LineRLGC, length: number, cells: number, d
     cells,
     nodes: cells + 1,
     segments: [{ name: 'seg', length, cells, cellLength, delay: length * Math.sqrt(line.l * line.c), z0: Math.sqrt(line.l / line.c), courant: 1 }],
-    dtReason: 'bench',
+    dtRule: { rule: 'duration' as const, duration: dt, steps: 1 },
   };
-  const ladder = buildLadder(n, plan);
-  const zero = { v: new Float64Array(cells + 1), branch: new Float64Array(cells), lumped: new Float64Array(ladder.lumped.length) };
+  const ladder = buildLadder(compileNet(n), plan);
+  const zero = { v: new Float64Array(cells + 1), i: new Float64Array(cells + 2), lumped: new Float64Array(ladder.lumped.length) };
   const lumpedNode = new Uint8Array(cells + 1);
   lumpedNode[0] = 1;
   lumpedNode[cells] = 1;

@@ -66,7 +66,7 @@ describe('summary.json', () => {
     cells: 4,
     nodes: 5,
     segments: [{ name: 'trace', length: 0.1, cells: 4, cellLength: 0.025, delay: 4e-11, z0: 50, courant: 1 }],
-    dtReason: 'test',
+    dtRule: { rule: 'edge', edge: 2e-10, cellsPerRise: 20 },
   };
   // Two probes over 5 samples at 2e-11 s: a linear ramp 0 → 2 V and a pulse that returns to 0.
   const record: ProbeRecord = {
@@ -98,7 +98,8 @@ describe('summary.json', () => {
   it('holds the discretization and the record layout, each segment with its labelled Z0', () => {
     const { segments, ...rest } = summary.discretization;
     const { segments: planned, ...plan } = discretization;
-    expect(rest).toEqual(plan);
+    // the engine's data, and the rule that set Δt in words
+    expect(rest).toEqual({ ...plan, dtReason: 'fastest edge 200 ps / cellsPerRise 20' });
     expect(segments).toEqual([{ ...planned[0], z0: expect.closeTo(50, 12), z0Basis: 'constant', z0At: null, z0HighFrequency: expect.closeTo(50, 12) }]);
     expect(summary.record).toEqual({ samples: 5, dtSample: 2e-11, end: 8e-11 });
   });
@@ -137,7 +138,7 @@ describe('summary.json: a segment’s Z0 is the figure `line` prints', () => {
     const line = { r: b.line.rdc, l: b.line.lInf, g: 0, c: b.line.cInf, wideband: b.line };
     const n = testNet({ signal: stepSignal(1, 1e-10), rs: 20, route: [{ kind: 'line', name: 'top', line, length: 0.0254 }] });
     const d: Discretization = {
-      dt: 1e-12, steps: 1, duration: 1e-12, cells: 1, nodes: 2, dtReason: 'test',
+      dt: 1e-12, steps: 1, duration: 1e-12, cells: 1, nodes: 2, dtRule: { rule: 'duration', duration: 1e-12, steps: 1 },
       segments: [{ name: 'top', length: 0.0254, cells: 1, cellLength: 0.0254, delay: 1e-10, z0: 51.3, courant: 1 }],
     };
     const record: ProbeRecord = { names: ['p'], dtSample: 1e-12, values: ndarray(new Float64Array([0, 1]), [1, 2]) };

@@ -81,6 +81,7 @@ describe('routeMarks on a hand-made map', () => {
       dtRow: 1e-9,
       values: ndarray(new Float64Array(4), [2, 2]),
       items: [{ name: 'only', kind: 'line', from: 0, to: 1 }],
+      paths: [],
     };
     expect(routeMarks(m, 0).markers).toEqual([]);
   });

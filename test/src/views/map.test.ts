@@ -46,6 +46,7 @@ describe('routeMapGrid', () => {
       dtRow: 1e-9,
       values: ndarray(Float64Array.from([...row, ...row.map((v) => 2 * v)]), [2, 5]),
       items: [],
+      paths: [],
     };
     const g = routeMapGrid(rm, 10);
     expect([g.nx, g.ny]).toEqual([10, 2]);
@@ -66,6 +67,7 @@ describe('routeMapGrid', () => {
       dtRow: 1e-9,
       values: ndarray(Float64Array.from([v0, v0, v0 + 1, v0 + 2]), [2, 2]),
       items: [],
+      paths: [],
     });
     expect(idleLevel(mk(0))).toBe(0);
     expect(idleLevel(mk(1.65))).toBe(1.65);
