@@ -22,19 +22,33 @@ export interface DcState {
 
 type Reduction = { kind: 'short'; index: number; leak: number } | { kind: 'resistive'; g: number } | { kind: 'pi'; series: number; shunt: number };
 
-/** The interior of a segment as a two-port at DC (cells ≥ 1). */
-function reduceSegment(ladder: Ladder, s: SegmentSpan, net: DcNetwork): Reduction {
+/**
+ * The nodal network's index of every slot that is a terminal node (not inside a segment, not a ghost),
+ * −1 for the rest: only terminals enter the sparse solve, so a long line costs arrays, not unknowns.
+ */
+function terminals(ladder: Ladder): { index: Int32Array; count: number } {
+  const inner = new Uint8Array(ladder.slots);
+  for (const s of ladder.segments) for (let k = 1; k < s.cells; k++) inner[s.base + k] = 1;
+  for (let g = 0; g < ladder.ghosts.length; g += 2) inner[ladder.ghosts[g]] = 1;
+  const index = new Int32Array(ladder.slots);
+  let count = 0;
+  for (let k = 0; k < ladder.slots; k++) index[k] = inner[k] ? -1 : count++;
+  return { index, count };
+}
+
+/** The interior of a segment as a two-port at DC (cells ≥ 1), between terminals a and b. */
+function reduceSegment(ladder: Ladder, s: SegmentSpan, net: DcNetwork, a: number, b: number): Reduction {
   const rc = s.line.r * s.cellLength;
   const gi = s.cells > 1 ? ladder.nodeG[s.base + 1] : 0;
   if (rc === 0) {
     // a short from end to end; the interior's leakage (all at the end voltage) is put on the first end
     const leak = (s.cells - 1) * gi;
-    net.toRail(s.first, leak, 0);
-    return { kind: 'short', index: net.short(s.first, s.last), leak };
+    net.toRail(a, leak, 0);
+    return { kind: 'short', index: net.short(a, b), leak };
   }
   if (gi === 0) {
     const g = 1 / (s.cells * rc);
-    net.conductance(s.first, s.last, g);
+    net.conductance(a, b, g);
     return { kind: 'resistive', g };
   }
   // y11 and y21 from the interior with the first end at 1 V and the far end at 0 V; π equivalent:
@@ -42,9 +56,9 @@ function reduceSegment(ladder: Ladder, s: SegmentSpan, net: DcNetwork): Reductio
   const v = interiorVoltages(s.cells, rc, gi, 1, 0);
   const y11 = (1 - v[1]) / rc;
   const y21 = -v[s.cells - 1] / rc;
-  net.conductance(s.first, s.last, -y21);
-  net.toRail(s.first, y11 + y21, 0);
-  net.toRail(s.last, y11 + y21, 0);
+  net.conductance(a, b, -y21);
+  net.toRail(a, y11 + y21, 0);
+  net.toRail(b, y11 + y21, 0);
   return { kind: 'pi', series: -y21, shunt: y11 + y21 };
 }
 
@@ -77,25 +91,30 @@ function interiorVoltages(cells: number, rc: number, gi: number, va: number, vb:
 }
 
 export function solveDc(ladder: Ladder, sources: Float64Array): DcState {
-  const net = new DcNetwork(ladder.slots);
+  const { index: t, count } = terminals(ladder);
+  const net = new DcNetwork(count);
   const where = (b: Ladder['lumped'][number]) => `${b.role === 'driver' ? 'driver' : b.item}`;
-  for (let k = 0; k < ladder.slots; k++) net.toRail(k, ladder.nodeG[k], 0);
-  const reductions = ladder.segments.map((s) => (s.cells > 0 ? reduceSegment(ladder, s, net) : undefined));
+  for (let k = 0; k < ladder.slots; k++) if (t[k] >= 0) net.toRail(t[k], ladder.nodeG[k], 0);
+  const reductions = ladder.segments.map((s) => (s.cells > 0 ? reduceSegment(ladder, s, net, t[s.first], t[s.last]) : undefined));
   // Lumped branches: a capacitor is open; R > 0 a conductance; R = 0 (with or without L) a short or an ideal source.
   const zero = ladder.lumped.map((b, k) => {
     if (b.part.c !== undefined) return -1;
     if (b.part.r > 0) {
-      if (b.p !== EXTERNAL && b.q !== EXTERNAL) net.conductance(b.p, b.q, 1 / b.part.r);
-      else net.toRail(b.p !== EXTERNAL ? b.p : b.q, 1 / b.part.r, externalVoltage(b, sources));
+      if (b.p !== EXTERNAL && b.q !== EXTERNAL) net.conductance(t[b.p], t[b.q], 1 / b.part.r);
+      else net.toRail(t[b.p !== EXTERNAL ? b.p : b.q], 1 / b.part.r, externalVoltage(b, sources));
       return -1;
     }
-    if (b.p !== EXTERNAL && b.q !== EXTERNAL) return net.short(b.p, b.q);
-    return net.ideal(b.p !== EXTERNAL ? b.p : b.q, externalVoltage(b, sources), where(ladder.lumped[k]));
+    if (b.p !== EXTERNAL && b.q !== EXTERNAL) return net.short(t[b.p], t[b.q]);
+    return net.ideal(t[b.p !== EXTERNAL ? b.p : b.q], externalVoltage(b, sources), where(ladder.lumped[k]));
   });
-  const v = net.solve();
+  const vt = net.solve();
+  const v = new Float64Array(ladder.slots);
+  for (let k = 0; k < ladder.slots; k++) if (t[k] >= 0) v[k] = vt[t[k]];
   const state: DcState = { v, i: new Float64Array(ladder.slots + 1), lumped: new Float64Array(ladder.lumped.length) };
   fillSegments(ladder, state, reductions);
-  const leaving = outflows(ladder, state, reductions, sources);
+  const out = outflows(ladder, state, reductions, sources);
+  const leaving = new Float64Array(count);
+  for (let k = 0; k < ladder.slots; k++) if (t[k] >= 0) leaving[t[k]] = out[k];
   const { shorts, ideals } = net.zeroResistanceCurrents(leaving);
   ladder.lumped.forEach((b, k) => {
     if (zero[k] < 0) return;
