@@ -51,43 +51,39 @@ function reduceSegment(ladder: Ladder, s: SegmentSpan, net: DcNetwork, a: number
     net.conductance(a, b, g);
     return { kind: 'resistive', g };
   }
-  // y11 and y21 from the interior with the first end at 1 V and the far end at 0 V; π equivalent:
-  // −y21 in series, y11 + y21 from each end to ground (the ladder is symmetric).
-  const v = interiorVoltages(s.cells, rc, gi, 1, 0);
-  const y11 = (1 - v[1]) / rc;
-  const y21 = -v[s.cells - 1] / rc;
-  net.conductance(a, b, -y21);
-  net.toRail(a, y11 + y21, 0);
-  net.toRail(b, y11 + y21, 0);
-  return { kind: 'pi', series: -y21, shunt: y11 + y21 };
+  // π equivalent of the symmetric ladder: −y21 in series, y11 + y21 from each end to ground. Both from
+  // Thevenin sweeps (continued fractions of positive terms, well conditioned however long the line):
+  // y11 = 1/(rc + r of everything right of node 1 with the far end shorted), −y21 = the current a 1 V
+  // first end drives into the shorted far end.
+  const left = sweep(s.cells, rc, gi, 1);
+  const right = sweep(s.cells, rc, gi, 0);
+  const y11 = 1 / (rc + right.r[s.cells - 1]);
+  const series = left.e[s.cells - 1] / (left.r[s.cells - 1] + rc);
+  const shunt = y11 - series;
+  net.conductance(a, b, series);
+  net.toRail(a, shunt, 0);
+  net.toRail(b, shunt, 0);
+  return { kind: 'pi', series, shunt };
 }
 
 /**
- * Voltages of nodes 0 … cells of a uniform ladder (series rc per cell, shunt gi per interior node) with
- * the ends held at va and vb: the tridiagonal node equations solved by the Thomas algorithm (stable:
- * the matrix is diagonally dominant).
+ * Thevenin equivalents along a uniform ladder (series rc per cell, shunt gi on each interior node)
+ * from an ideal source v0 at one end: e[k], r[k] seen at node k (k = 0 … cells − 1 counted from that
+ * end), including node k's own shunt; node 0 is the source itself. The same sweep from the other end
+ * gives the other side; a node's voltage joins the two (the chain's classic DC solution by Thevenin
+ * sweeps, exact for ideal ends and stable: every step combines positive resistances).
  */
-function interiorVoltages(cells: number, rc: number, gi: number, va: number, vb: number): Float64Array {
-  const v = new Float64Array(cells + 1);
-  v[0] = va;
-  v[cells] = vb;
-  const m = cells - 1;
-  if (m <= 0) return v;
-  const g = 1 / rc;
-  const d = 2 * g + gi;
-  const cp = new Float64Array(m);
-  const dp = new Float64Array(m);
-  // row k (node k+1): d·v[k+1] − g·v[k] − g·v[k+2] = 0
-  cp[0] = -g / d;
-  dp[0] = (g * va + (m === 1 ? g * vb : 0)) / d;
-  for (let k = 1; k < m; k++) {
-    const den = d + g * cp[k - 1];
-    cp[k] = -g / den;
-    dp[k] = ((k === m - 1 ? g * vb : 0) + g * dp[k - 1]) / den;
+function sweep(cells: number, rc: number, gi: number, v0: number): { e: Float64Array; r: Float64Array } {
+  const e = new Float64Array(cells);
+  const r = new Float64Array(cells);
+  e[0] = v0;
+  for (let k = 1; k < cells; k++) {
+    const rs = r[k - 1] + rc;
+    const d = 1 + rs * gi;
+    e[k] = e[k - 1] / d;
+    r[k] = rs / d;
   }
-  v[m] = dp[m - 1];
-  for (let k = m - 2; k >= 0; k--) v[k + 1] = dp[k] - cp[k] * v[k + 2];
-  return v;
+  return { e, r };
 }
 
 export function solveDc(ladder: Ladder, sources: Float64Array): DcState {
@@ -147,9 +143,23 @@ function fillSegments(ladder: Ladder, state: DcState, reductions: (Reduction | u
       for (let j = 0; j < s.cells; j++) state.i[s.base + 1 + j] = current;
       return;
     }
-    const w = interiorVoltages(s.cells, rc, ladder.nodeG[s.base + 1], va, vb);
-    for (let k = 1; k < s.cells; k++) state.v[s.base + k] = w[k];
-    for (let j = 0; j < s.cells; j++) state.i[s.base + 1 + j] = (w[j] - w[j + 1]) / rc;
+    // sweeps from both ends (ideal sources at the end voltages); node k joins left[k] (with its shunt)
+    // and everything right of it through cell k; cell j carries left[j] − right[cells−1−j] over the
+    // resistances in between
+    const cells = s.cells;
+    const gi = ladder.nodeG[s.base + 1];
+    const left = sweep(cells, rc, gi, va);
+    const right = sweep(cells, rc, gi, vb);
+    for (let k = 1; k < cells; k++) {
+      const re = right.e[cells - 1 - k];
+      const rr = right.r[cells - 1 - k] + rc; // right of node k, through cell k, without node k's shunt
+      // parallel of (left.e[k], left.r[k]) and (re, rr)
+      state.v[s.base + k] = (left.e[k] * rr + re * left.r[k]) / (left.r[k] + rr);
+    }
+    for (let j = 0; j < cells; j++) {
+      const k = cells - 1 - j;
+      state.i[s.base + 1 + j] = (left.e[j] - right.e[k]) / (left.r[j] + rc + right.r[k]);
+    }
   });
 }
 

@@ -141,3 +141,28 @@ describe('DC start on the node graph', () => {
     for (const x of mid) expect(x).toBeCloseTo(1 - current * (10 + 25), 12);
   });
 });
+
+describe('DC start on a long lossy line', () => {
+  // The same cosh/sinh closed form as above (Pozar ch. 2, jω → 0), on a line of 20 000 cells with both R′
+  // and G′: the node equations are then badly conditioned (ratio of a cell's conductance to a node's
+  // leakage ≈ 1e10), and only a well-conditioned elimination keeps the input voltage to 1e-9. The ladder
+  // differs from the continuous line by (γΔZ)² ≈ 5e-11 here.
+  it('matches the closed form to 1e-9 with 20 000 cells', () => {
+    const r = 2;
+    const g = 1e-4;
+    const length = 10;
+    const rs = 25;
+    const rl = 100;
+    const n = net({ signal: stepSignal(0, 50e-12, 1e-9, 1), rs, route: [{ kind: 'line', name: 'c', line: lineOf(50, 5e-9, r, g), length }], receiver: [part({ r: rl })] });
+    const { ladder, dc } = dcOf(n, 1);
+    expect(ladder.segments[0].cells).toBe(20000);
+    const gamma = Math.sqrt(r * g);
+    const zc = Math.sqrt(r / g);
+    const t = Math.tanh(gamma * length);
+    const zin = (zc * (rl + zc * t)) / (zc + rl * t);
+    const v0 = zin / (rs + zin);
+    const vl = v0 / (Math.cosh(gamma * length) + (zc / rl) * Math.sinh(gamma * length));
+    expect(Math.abs(dc.v[0] - v0) / v0).toBeLessThan(1e-9);
+    expect(Math.abs(dc.v[20000] - vl) / vl).toBeLessThan(1e-9);
+  });
+});
