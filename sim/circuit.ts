@@ -205,7 +205,7 @@ class Compiler {
       }
       return { kind: 'node', node: p.side === 'in' ? place.from : place.to };
     }
-    if (place.kind === 'shunt' || place.kind === 'branch') return { kind: 'node', node: place.node };
+    if ((p.at === 'shunt' && place.kind === 'shunt') || (p.at === 'branch' && place.kind === 'branch')) return { kind: 'node', node: place.node };
     this.problems.push({ path, message: `'${p.item}' is a ${place.kind} item, not a ${p.at} item` });
     return undefined;
   }

@@ -75,7 +75,9 @@ export type ProbeSpec =
   | { name: string; at: 'receiver'; receiver?: string }
   | { name: string; at: 'line'; item: string; position: number }
   | { name: string; at: 'series'; item: string; side: 'in' | 'out' }
-  | { name: string; at: 'shunt'; item: string };
+  | { name: string; at: 'shunt'; item: string }
+  /** At a branch item's branch point. */
+  | { name: string; at: 'branch'; item: string };
 
 export interface RunSettings {
   /** Simulated time span (s); undefined = choose from the signal and the route's delay. */

@@ -25,10 +25,22 @@ export function allItems(route: readonly RouteItem[]): RouteItem[] {
   return out;
 }
 
-/** Every receiver: the main one first, then the branches' in file order (depth first). */
+/**
+ * Every receiver: the main one first, then the branches' in the order the compile step reaches them
+ * (depth first; a branch's own receiver after the receivers of branches nested in its route).
+ */
 export function allReceivers(net: Net): NamedReceiver[] {
   const out: NamedReceiver[] = [mainReceiver(net)];
-  for (const it of allItems(net.route)) if (it.kind === 'branch') for (const b of it.branches) out.push(b.receiver);
+  const walk = (items: readonly RouteItem[]) => {
+    for (const it of items) {
+      if (it.kind !== 'branch') continue;
+      for (const b of it.branches) {
+        walk(b.route);
+        out.push(b.receiver);
+      }
+    }
+  };
+  walk(net.route);
   return out;
 }
 

@@ -1,6 +1,6 @@
 // Where the `line` command's lines come from: the route of a scenario file (each line item, and
 // named lines no item uses), or a geometry given on the command line as key=value pairs.
-import type { Net } from '../../sim/model.js';
+import type { Net, RouteItem } from '../../sim/model.js';
 import { describeLineNode, GEOMETRY_SPECS, geometryKeys, lineParams, readGeometryNode, type GeometryKind } from '../scenario/line-geometry.js';
 import { readLine } from '../scenario/lines.js';
 import { readScenario } from '../scenario/load.js';
@@ -36,22 +36,35 @@ export function linesOfTree(net: Net, root: SrcNode | undefined, reader: Reader)
   const route = entry(root, 'route');
   const used = new Set<string>();
   const out: LineInput[] = [];
-  const routeNodes = route?.type === 'seq' ? route.items : [];
-  net.route.forEach((item, i) => {
-    if (item.kind !== 'line') return;
-    const node = entry(routeNodes[i], 'line');
-    let lineNode = node;
-    let path = joinKey(joinIndex('route', i), 'line');
-    let lineName: string | undefined;
-    if (node?.type === 'scalar' && typeof node.value === 'string') {
-      lineName = node.value;
-      used.add(lineName);
-      lineNode = entry(named, lineName);
-      path = joinKey('lines', lineName);
-    }
-    const description = describeLineNode(reader, lineNode, path);
-    out.push({ name: item.name, origin: 'route item', length: item.length, lineName, rlgc: item.line, description });
-  });
+  // The route tree and its source nodes side by side: a branch's routes are walked where they appear.
+  const walk = (items: readonly RouteItem[], seq: SrcNode | undefined, prefix: string): void => {
+    const nodes = seq?.type === 'seq' ? seq.items : [];
+    items.forEach((item, i) => {
+      const itemPath = joinIndex(prefix, i);
+      if (item.kind === 'branch') {
+        const bn = entry(nodes[i], 'branch');
+        item.branches.forEach((b, j) => {
+          const one = bn?.type === 'seq' ? bn.items[j] : bn;
+          walk(b.route, entry(one, 'route'), joinKey(bn?.type === 'seq' ? joinIndex(joinKey(itemPath, 'branch'), j) : joinKey(itemPath, 'branch'), 'route'));
+        });
+        return;
+      }
+      if (item.kind !== 'line') return;
+      const node = entry(nodes[i], 'line');
+      let lineNode = node;
+      let path = joinKey(itemPath, 'line');
+      let lineName: string | undefined;
+      if (node?.type === 'scalar' && typeof node.value === 'string') {
+        lineName = node.value;
+        used.add(lineName);
+        lineNode = entry(named, lineName);
+        path = joinKey('lines', lineName);
+      }
+      const description = describeLineNode(reader, lineNode, path);
+      out.push({ name: item.name, origin: 'route item', length: item.length, lineName, rlgc: item.line, description });
+    });
+  };
+  walk(net.route, route, 'route');
   // Named lines no item uses: checked by the loader all the same, so still worth a report.
   if (named?.type === 'map') {
     for (const e of (named as MapNode).entries) {

@@ -24,6 +24,7 @@ import { addMeasurementSections } from './measurement-sections.js';
 import { measureNet } from './measure-net.js';
 import { crossingLevels, netSettledLevels } from './net-levels.js';
 import type { CheckResult } from '../measure/index.js';
+import { receiversSection, withReceiverProbes } from './receivers.js';
 
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
@@ -258,7 +259,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const t1 = performance.now();
   // The bounce view shows the driver pin and the receiver: simulate them even when no probe is there.
   const views = plan.views.includes('bounce') ? await import('../views/bounce.js') : undefined;
-  const simNet = views ? views.withEndProbes(net) : net;
+  // Every receiver is measured: a branched net gets a probe at each receiver that has none.
+  const simNet = withReceiverProbes(views ? views.withEndProbes(net) : net);
   const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap || options.explore ? {} : undefined });
   const simSeconds = (performance.now() - t1) / 1000;
   const record = selectProbes(result.record, net.probes.map((p) => p.name));
@@ -274,6 +276,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   });
   // Per-probe measurements and the scenario's checks (src/output/measurement-sections.ts).
   const measured = addMeasurementSections(summary, net, userResult, measureNet(net, userResult, [], settled));
+  const receivers = receiversSection(net, simNet, result);
+  if (receivers) addSummarySection(summary, 'receivers', receivers);
   if (plan.views.includes('eye')) {
     const { eyeInputFor } = await import('../views/draw.js');
     const { measureEye, EYE_MIN_WINDOWS, fewWindowsNote } = await import('../views/eye.js');

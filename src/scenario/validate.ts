@@ -3,10 +3,11 @@
 // The sections are read one after another and each reader reports into the same Problems list;
 // a bad section yields undefined and the others are still checked, so one run lists everything.
 // Line forms live in lines.ts, signal kinds in signals.ts, parts in parts.ts.
-import type { LineRLGC, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../../sim/model.js';
+import { MAIN_RECEIVER, type LineRLGC, type NamedReceiver, type Net, type ProbeSpec, type RouteItem, type RunSettings, type Signal } from '../../sim/model.js';
+import { allReceivers } from '../../sim/route-tree.js';
 import { NON_NEGATIVE, POSITIVE, formatSI, parseQuantity } from '../units.js';
 import { readLine } from './lines.js';
-import { readPart, readPartList } from './parts.js';
+import { RESERVED_NAMES, readReceiver, readRouteList, type PlaceInfo, type RouteContext } from './route.js';
 import { readSignal } from './signals.js';
 import { readVerification, type CheckedNet } from './checks.js';
 import { Obj, Reader } from './read.js';
@@ -15,14 +16,9 @@ import { toPlain, type SrcNode } from './parse.js';
 
 export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'levels', 'thresholds', 'checks'] as const;
 export const DRIVER_KEYS = ['signal', 'resistance'] as const;
-export const ITEM_KINDS = ['line', 'series', 'shunt'] as const;
-export const ITEM_KEYS = { line: ['name', 'line', 'length'], series: ['name', 'series'], shunt: ['name', 'shunt'] } as const;
-export const RECEIVER_KEYS = ['parts'] as const;
 export const PROBE_KEYS = ['name', 'at', 'position', 'side', 'thresholds'] as const;
 export const RUN_KEYS = ['duration', 'cellsPerRise', 'sample'] as const;
-
-/** Probe targets that are not item names. */
-export const RESERVED_NAMES = ['driver', 'receiver'] as const;
+export { ITEM_FORMS, ITEM_KINDS, RECEIVER_KEYS, BRANCH_KEYS, RESERVED_NAMES } from './route.js';
 
 /** Used when a scenario has no "probes" key: one probe at each end of the route. */
 export const DEFAULT_PROBES: readonly ProbeSpec[] = [
@@ -30,18 +26,19 @@ export const DEFAULT_PROBES: readonly ProbeSpec[] = [
   { name: 'receiver', at: 'receiver' },
 ];
 
+/**
+ * The probes of a scenario without a "probes" key: the driver pin and every receiver, each named after
+ * what it probes ("driver", "receiver" — or the main receiver's own name — and each branch receiver's).
+ */
+export function defaultProbes(receivers: readonly NamedReceiver[]): ProbeSpec[] {
+  return [
+    { name: 'driver', at: 'driver' },
+    ...receivers.map((rx, k): ProbeSpec => (k === 0 ? { name: rx.name, at: 'receiver' } : { name: rx.name, at: 'receiver', receiver: rx.name })),
+  ];
+}
+
 export const DEFAULT_CELLS_PER_RISE = 20;
 export const MIN_CELLS_PER_RISE = 4;
-
-type ItemKind = (typeof ITEM_KINDS)[number];
-
-/** What probes need to know about each route item (even one whose other keys were bad). */
-interface ItemInfo {
-  kind: ItemKind;
-  path: string;
-  /** Line length (m); undefined for parts, or when the length was bad. */
-  length?: number;
-}
 
 const PROBE_NAME_RE = /^[^,"\r\n]+$/;
 
@@ -65,10 +62,10 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   const description = top.has('description') ? top.string('description', 'a description text') : undefined;
 
   const driver = readDriver(r, top);
-  const lines = readLines(r, top);
-  const route = readRoute(r, top, lines);
-  const receiver = readReceiver(r, top);
-  const probes = readProbes(r, top, route.items);
+  const ctx: RouteContext = { lines: readLines(r, top), places: new Map() };
+  const route = readRoute(r, top, ctx);
+  const receiver = readMainReceiver(r, top, ctx);
+  const probes = readProbes(r, top, ctx.places, route && receiver ? allReceivers({ route, receiver: receiver.parts, receiverName: receiver.name } as Net) : undefined);
   const run = readRun(r, top);
   // Checks and logic thresholds (checks.ts): extra fields on the Net that the engine ignores.
   const verification = readVerification(r, top, probes?.map((p) => p.name));
@@ -77,11 +74,12 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   const net: CheckedNet = {
     title: title!,
     driver: driver!,
-    route: route.route!,
-    receiver: receiver!,
+    route: route!,
+    receiver: receiver!.parts,
     probes: probes!,
     run: run!,
   };
+  if (receiver!.name !== MAIN_RECEIVER) net.receiverName = receiver!.name;
   if (description !== undefined) net.description = description;
   if (verification?.thresholds) net.thresholds = verification.thresholds;
   if (verification?.probeThresholds) net.probeThresholds = verification.probeThresholds;
@@ -117,104 +115,23 @@ function readLines(r: Reader, top: Obj): Map<string, LineRLGC | undefined> {
   return out;
 }
 
-function readRoute(r: Reader, top: Obj, lines: Map<string, LineRLGC | undefined>): { route?: RouteItem[]; items: Map<string, ItemInfo> } {
-  const items = new Map<string, ItemInfo>();
+function readRoute(r: Reader, top: Obj, ctx: RouteContext): RouteItem[] | undefined {
   const what = 'a list of route items (may be empty) like [{"name": "trace1", "line": "trace", "length": "3in"}]';
-  if (!top.has('route')) {
-    top.missing('route', what);
-    return { items };
-  }
-  const seq = r.list(top.get('route'), 'route', what, top.pos);
-  if (!seq) return { items };
-  const route: RouteItem[] = [];
-  let ok = true;
-  for (const it of Obj.items(seq, 'route')) {
-    const item = readItem(r, it.node, it.path, lines, items, seq.pos);
-    if (item) route.push(item);
-    else ok = false;
-  }
-  return { route: ok ? route : undefined, items };
+  if (!top.has('route')) return top.missing('route', what);
+  return readRouteList(r, top.get('route'), 'route', ctx, top.pos, what);
 }
 
-function readItem(r: Reader, node: SrcNode, path: string, lines: Map<string, LineRLGC | undefined>, items: Map<string, ItemInfo>, at?: Pos): RouteItem | undefined {
-  const o = r.object(node, path, 'a route item like {"name": "trace1", "line": "trace", "length": "3in"}, {"name": "r1", "series": {"r": "22ohm"}} or {"name": "c1", "shunt": {"c": "3pF"}}', at);
-  if (!o) return undefined;
-  const kinds = ITEM_KINDS.filter((k) => o.has(k));
-  const allKeys = [...new Set(Object.values(ITEM_KEYS).flat())];
-  if (kinds.length !== 1) {
-    o.checkKeys(allKeys);
-    if (kinds.length === 0) r.fail(path, node, 'a route item with one of "line" (with "length"), "series" or "shunt"', at);
-    else {
-      const second = o.entry(kinds[1])!;
-      r.problems.add(o.keyPath(kinds[1]), toPlain(second.value), `one of "line", "series", "shunt" per item, not both "${kinds[0]}" and "${kinds[1]}" (make two items)`, second.keyPos ?? o.pos);
-    }
-    return undefined;
+function readMainReceiver(r: Reader, top: Obj, ctx: RouteContext): NamedReceiver | undefined {
+  if (!top.has('receiver')) {
+    ctx.places.set(MAIN_RECEIVER, { kind: 'receiver', path: 'receiver', receiver: MAIN_RECEIVER });
+    return { name: MAIN_RECEIVER, parts: [] }; // open end
   }
-  const kind = kinds[0];
-  let ok = o.checkKeys(ITEM_KEYS[kind], allKeys);
-
-  // Name: optional, defaults to the item's path ("route[2]"); unique; not "driver"/"receiver".
-  let name: string | undefined = path;
-  if (o.has('name')) {
-    name = o.string('name', 'an item name like "trace1"');
-    if (name !== undefined && name.trim() === '') name = r.fail(o.keyPath('name'), o.get('name'), 'a non-empty item name like "trace1"', o.pos);
-    else if (name !== undefined && (RESERVED_NAMES as readonly string[]).includes(name)) {
-      name = r.fail(o.keyPath('name'), o.get('name'), `an item name other than "driver" and "receiver" (those name the ends of the route in probes)`, o.pos);
-    }
-  }
-  if (name !== undefined) {
-    const prev = items.get(name);
-    if (prev) {
-      r.fail(o.has('name') ? o.keyPath('name') : path, o.get('name') ?? node, `a unique item name ("${name}" is also ${prev.path}'s name)`, o.pos);
-      name = undefined;
-    }
-  }
-  const info: ItemInfo = { kind, path };
-  if (name !== undefined) items.set(name, info);
-
-  if (kind === 'line') {
-    const lineNode = o.get('line')!;
-    let line: LineRLGC | undefined;
-    if (lineNode.type === 'scalar' && typeof lineNode.value === 'string') {
-      const ref = lineNode.value;
-      if (!lines.has(ref)) {
-        const names = [...lines.keys()];
-        const guess = closest(ref, names);
-        r.fail(o.keyPath('line'), lineNode, names.length > 0 ? `the name of a line in "lines" (${names.map((n) => `"${n}"`).join(', ')})${guess ? ` — did you mean "${guess}"?` : ''} — or a line description` : 'a line description like {"z0": "50ohm", "delay": "6.67ns/m"} (no "lines" are named in this file)', o.pos);
-      } else {
-        line = lines.get(ref);
-        if (!line) ok = false; // its own problems were reported under lines.<name>
-      }
-    } else {
-      line = readLine(r, lineNode, o.keyPath('line'), o.pos);
-    }
-    const length = o.quantity('length', { dim: 'length', range: NON_NEGATIVE, example: '3in' });
-    info.length = length;
-    if (!ok || line === undefined || length === undefined || name === undefined) return undefined;
-    return { kind: 'line', name, line, length };
-  }
-  if (kind === 'series') {
-    const part = readPart(r, o.get('series'), o.keyPath('series'), false, o.pos);
-    if (!ok || !part || name === undefined) return undefined;
-    return { kind: 'series', name, part };
-  }
-  const parts = readPartList(r, o.get('shunt'), o.keyPath('shunt'), false, o.pos);
-  if (!ok || !parts || name === undefined) return undefined;
-  return { kind: 'shunt', name, parts };
+  return readReceiver(r, top.get('receiver'), 'receiver', ctx, true, top.pos);
 }
 
-function readReceiver(r: Reader, top: Obj): Part[] | undefined {
-  if (!top.has('receiver')) return []; // open end
-  const o = r.object(top.get('receiver'), 'receiver', 'a receiver like {"parts": [{"c": "3pF"}]} (or {} for an open end)', top.pos);
-  if (!o) return undefined;
-  o.checkKeys(RECEIVER_KEYS);
-  if (!o.has('parts')) return [];
-  return readPartList(r, o.get('parts'), o.keyPath('parts'), true, o.pos);
-}
-
-function readProbes(r: Reader, top: Obj, items: Map<string, ItemInfo>): ProbeSpec[] | undefined {
-  // No "probes" key: probe both ends of the route, named "driver" and "receiver".
-  if (!top.has('probes')) return DEFAULT_PROBES.map((p) => ({ ...p }));
+function readProbes(r: Reader, top: Obj, items: Map<string, PlaceInfo>, receivers: NamedReceiver[] | undefined): ProbeSpec[] | undefined {
+  // No "probes" key: probe the driver pin and every receiver ("driver" and "receiver" without branches).
+  if (!top.has('probes')) return receivers ? defaultProbes(receivers) : DEFAULT_PROBES.map((p) => ({ ...p }));
   const what = 'a list of at least one probe like [{"name": "rx", "at": "receiver"}] (leave "probes" out for probes at the driver and the receiver)';
   const seq = r.list(top.get('probes'), 'probes', what, top.pos);
   if (!seq) return undefined;
@@ -230,19 +147,22 @@ function readProbes(r: Reader, top: Obj, items: Map<string, ItemInfo>): ProbeSpe
   return ok ? out : undefined;
 }
 
-function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, ItemInfo>, names: Map<string, string>, at?: Pos): ProbeSpec | undefined {
+function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, PlaceInfo>, names: Map<string, string>, at?: Pos): ProbeSpec | undefined {
   const o = r.object(node, path, 'a probe like {"name": "rx", "at": "receiver"}', at);
   if (!o) return undefined;
   let ok = o.checkKeys(PROBE_KEYS);
-  const targets = [...RESERVED_NAMES, ...items.keys()];
+  const targets = [...new Set([...RESERVED_NAMES, ...items.keys()])];
   let target: string | undefined;
   if (!o.has('at')) ok = !!o.missing('at', `where to probe: ${targets.map((t) => `"${t}"`).join(', ')}`);
   else {
-    target = o.string('at', `the name of a route item, "driver" or "receiver"`);
+    target = o.string('at', `the name of a route item or receiver, "driver" or "receiver"`);
     if (target !== undefined && !targets.includes(target)) {
       const guess = closest(target, targets);
-      const itemNames = [...items.keys()].map((n) => `"${n}"`).join(', ');
-      r.fail(o.keyPath('at'), o.get('at'), `"driver", "receiver" or the name of a route item (${itemNames || 'the route is empty'})${guess ? ` — did you mean "${guess}"?` : ''}`, o.pos);
+      const named = (kind: (k: PlaceInfo['kind']) => boolean) => [...items].filter(([n, i]) => kind(i.kind) && n !== 'receiver').map(([n]) => `"${n}"`);
+      const itemNames = named((k) => k !== 'receiver');
+      const rxNames = named((k) => k === 'receiver');
+      const list = `${itemNames.join(', ') || 'the route is empty'}${rxNames.length ? `; receivers: ${rxNames.join(', ')}` : ''}`;
+      r.fail(o.keyPath('at'), o.get('at'), `"driver", "receiver" or the name of a route item (${list})${guess ? ` — did you mean "${guess}"?` : ''}`, o.pos);
       target = undefined;
     }
     if (target === undefined) ok = false;
@@ -262,8 +182,9 @@ function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, It
   }
   if (name === undefined) ok = false;
 
-  const info = target !== undefined ? items.get(target) : undefined;
-  const kindText = target === 'driver' ? 'the driver' : target === 'receiver' ? 'the receiver' : info ? `a ${info.kind} item` : undefined;
+  const info = target !== undefined && target !== 'receiver' ? items.get(target) : undefined;
+  const kindText =
+    target === 'driver' ? 'the driver' : target === 'receiver' ? 'the receiver' : info?.kind === 'receiver' ? `receiver "${target}"` : info ? `a ${info.kind} item` : undefined;
   // Options that do not fit the target's kind.
   if (kindText !== undefined) {
     if (o.has('position') && info?.kind !== 'line') {
@@ -278,6 +199,8 @@ function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, It
   if (!ok || name === undefined || target === undefined) return undefined;
   if (target === 'driver' || target === 'receiver') return { name, at: target };
   if (!info) return undefined;
+  if (info.kind === 'receiver') return info.path === 'receiver' ? { name, at: 'receiver' } : { name, at: 'receiver', receiver: target };
+  if (info.kind === 'branch') return { name, at: 'branch', item: target };
   if (info.kind === 'series') {
     let side: 'in' | 'out' = 'out';
     if (o.has('side')) {

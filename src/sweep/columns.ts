@@ -90,6 +90,49 @@ export function checkBands(net: Net): CheckLimit[] {
     .map((c) => c.band!);
 }
 
+/**
+ * Which way is worse for a metric, for the worst over several receivers: larger for aberrations,
+ * times, counts and rail excursions, smaller for noise and ringback margins. Levels (min, max, final) and edge counts have no
+ * worse direction and get no worst column.
+ */
+export const WORSE: Partial<Record<MetricName, 'larger' | 'smaller'>> = {
+  overshoot: 'larger',
+  undershoot: 'larger',
+  ringback: 'larger',
+  settling: 'larger',
+  rise: 'larger',
+  fall: 'larger',
+  delay: 'larger',
+  delayThreshold: 'larger',
+  crossings: 'larger',
+  noiseMarginHigh: 'smaller',
+  noiseMarginLow: 'smaller',
+  ringbackMargin: 'smaller',
+  belowLowRail: 'larger',
+};
+
+/** The aggregate over several receivers' probes: a pseudo-probe whose columns hold the worst value. */
+export interface WorstOf {
+  /** Its name in sweep.csv headers and in --pick ("worst"). */
+  name: string;
+  probes: string[];
+  columns: MetricColumn[];
+}
+
+/** The worst of each column over `probes`: null when any of them cannot be measured. */
+export function worstValues(worst: WorstOf, probes: readonly string[], cols: readonly MetricColumn[], values: readonly (number | null)[]): (number | null)[] {
+  return worst.columns.map((col) => {
+    const c = cols.indexOf(col) >= 0 ? cols.indexOf(col) : cols.findIndex((x) => x.key === col.key);
+    let acc: number | null = null;
+    for (const p of worst.probes) {
+      const v = values[probes.indexOf(p) * cols.length + c];
+      if (v === null || v === undefined) return null;
+      acc = acc === null ? v : WORSE[col.metric] === 'smaller' ? Math.min(acc, v) : Math.max(acc, v);
+    }
+    return acc;
+  });
+}
+
 /** A check that measures a column's value and always passes (its `measured` is the value: the worst over edges). */
 export function columnCheck(probe: string, col: MetricColumn): CheckSpec {
   const limit = col.smallestWorst ? { min: { value: -Number.MAX_VALUE, unit: col.unit } } : { max: { value: Number.MAX_VALUE, unit: col.unit } };

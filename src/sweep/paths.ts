@@ -2,11 +2,14 @@
 //
 //   route.r1.series.r        the "series" part of the route item named "r1"
 //   route[2].length          the third route item (by position)
+//   route.tee1.branch.route.stub1.length   an item inside a branch (a star: route.hub.branch[1].route...)
+//   route.tee1.branch.receiver.parts[0].c  a branch's receiver
 //   lines.trace.z0           a named line model (every item that uses it changes)
 //   driver.resistance, driver.signal.rise, receiver.parts[0].c, run.cellsPerRise
 //
 // A key is a run of letters, digits, "_", "-" and "$", or a quoted string (`lines."my trace".z0`);
-// `[n]` indexes a list. After `route`, a key names a route item by its "name".
+// `[n]` indexes a list. After `route` (the top level's or a branch's), a key names a route item by its
+// "name"; a name that is not on that route but elsewhere in the tree is reported with its full path.
 // Setting a value copies the scenario (the original is never changed) and creates a missing last
 // key, so a default can be swept too; the validator then checks the result like any scenario.
 
@@ -100,12 +103,39 @@ function describe(v: unknown): string {
   return Array.isArray(v) ? 'a list' : isObject(v) ? 'an object' : v === undefined ? 'nothing' : JSON.stringify(v);
 }
 
-/** Position of a route item by name; throws PathError listing the names. */
-function routeIndex(route: unknown[], name: string, where: string): number {
+/** Position of a route item by name; throws PathError listing the names here, and where the name is if elsewhere. */
+function routeIndex(route: unknown[], name: string, where: string, root: unknown, concrete: string): number {
   const i = route.findIndex((it) => isObject(it) && it.name === name);
   if (i >= 0) return i;
   const names = route.map((it, k) => (isObject(it) && typeof it.name === 'string' ? it.name : `[${k}]`));
-  throw new PathError(`${where}: no route item named "${name}" (route items: ${names.join(', ') || 'none'})`);
+  const elsewhere = findItemPath(isObject(root) ? root.route : undefined, name, 'route');
+  const hint = elsewhere ? ` — "${name}" is at ${elsewhere}` : '';
+  const list = concrete === 'route' ? '' : ` in ${concrete}`;
+  throw new PathError(`${where}: no route item named "${name}"${list} (route items: ${names.join(', ') || 'none'})${hint}`);
+}
+
+/** The path by names of a route item anywhere in the route tree (`route.tee1.branch.route.stub1`), if any. */
+export function findItemPath(route: unknown, name: string, prefix: string): string | undefined {
+  if (!Array.isArray(route)) return undefined;
+  for (const it of route) {
+    if (!isObject(it)) continue;
+    const key = typeof it.name === 'string' ? formatPath([{ kind: 'key', key: it.name }]) : undefined;
+    if (it.name === name) return `${prefix}.${key}`;
+    if (key === undefined || it.branch === undefined) continue;
+    const branches = Array.isArray(it.branch) ? it.branch : [it.branch];
+    for (let b = 0; b < branches.length; b++) {
+      const br = branches[b];
+      const at = `${prefix}.${key}.branch${Array.isArray(it.branch) ? `[${b}]` : ''}.route`;
+      const found = isObject(br) ? findItemPath(br.route, name, at) : undefined;
+      if (found) return found;
+    }
+  }
+  return undefined;
+}
+
+/** True when `concrete` names a route list: the top level's or a branch's. */
+function isRouteList(concrete: string): boolean {
+  return concrete === 'route' || concrete.endsWith('.route');
 }
 
 interface Resolved {
@@ -130,8 +160,8 @@ function resolve(root: unknown, steps: readonly PathStep[], text: string): Resol
       if (st.index >= cur.length) throw new PathError(`${where}: index [${st.index}] is past the end of a list of ${cur.length}`);
       key = st.index;
       concrete += `[${st.index}]`;
-    } else if (Array.isArray(cur) && concrete === 'route') {
-      key = routeIndex(cur, st.key, text);
+    } else if (Array.isArray(cur) && isRouteList(concrete)) {
+      key = routeIndex(cur, st.key, text, root, concrete);
       concrete += `[${key}]`;
     } else {
       if (!isObject(cur)) throw new PathError(`${where}: "${st.key}" is a key of an object, but here is ${describe(cur)}`);

@@ -6,13 +6,15 @@
 //   condition  := ref op value
 //   op         := "<" | "<=" | ">" | ">=" | "≤" | "≥"
 //   value      := number [unit]                   e.g. 10%  0.2V  200mV  5ns  1  40ohm
-//   ref        := [probe "."] metric [ "[" band "]" ]   e.g. overshoot  rx.settling  settling[1%]
+//   ref        := [probe "."] metric [ "[" band "]" ]   e.g. overshoot  rx.settling  settling[1%]  worst.overshoot
 //              |  [probe "."] column                    e.g. rx.overshoot_V  settling_1pct_s
 //              |  varied path                           e.g. route.rs.series.r
 //
 // Keywords are case-insensitive; a probe name with spaces or dots is quoted: "rx 2".overshoot.
-// A metric without a probe means the probe at the receiver (the first probe "at": "receiver", else the
-// last probe). A condition's unit chooses between a metric's variants: overshoot<10% compares the
+// A metric without a probe means the probe at the main receiver (the first probe "at" it, else the last
+// probe). With probes at several receivers (a branched net), the probe name "worst" means the worst of
+// them: the largest overshoot, settling, delay … and the smallest noise margin over the receivers, so
+// "minimize worst.overshoot" picks the point whose worst receiver rings least. A condition's unit chooses between a metric's variants: overshoot<10% compares the
 // percentage of the swing, overshoot<0.3V the volts. An objective without a unit uses a metric's
 // default: overshoot, undershoot in %, ringback in V. A settling band in brackets is measured in
 // addition to the default ±5 %.
@@ -21,7 +23,7 @@
 // hold), the one with the smallest (largest) objective; ties go to the lowest point number.
 import { METRICS, isMetricName, parseCheckLimit, type CheckLimit, type LimitUnit, type MetricName } from '../measure/index.js';
 import { closest } from '../scenario/problems.js';
-import { columnName, metricColumns, type MetricColumn } from './columns.js';
+import { columnName, metricColumns, type MetricColumn, type WorstOf } from './columns.js';
 import { parseAnyQuantity } from './spec.js';
 
 export class PickError extends Error {
@@ -193,6 +195,8 @@ export interface PickParam {
 
 export interface PickContext {
   probes: readonly string[];
+  /** The worst over several receivers, when the net has them. */
+  worst?: WorstOf | null;
   /** Probe used when a ref names none. */
   defaultProbe: string;
   columns: readonly MetricColumn[];
@@ -236,9 +240,11 @@ function resolveRef(r: RefSyntax, ctx: PickContext, text: string, unit: LimitUni
   const s = splitRef(r.text);
   const probe = s.probe ?? ctx.defaultProbe;
   const probePos = r.pos;
-  if (s.probe !== undefined && !ctx.probes.includes(s.probe)) {
-    const guess = closest(s.probe, [...ctx.probes]);
-    throw new PickError(`no probe named "${s.probe}" (probes: ${ctx.probes.join(', ')})${guess ? ` — did you mean "${guess}"?` : ''}`, text, probePos);
+  const isWorst = ctx.worst != null && s.probe === ctx.worst.name;
+  if (s.probe !== undefined && !ctx.probes.includes(s.probe) && !isWorst) {
+    const known = ctx.worst ? [...ctx.probes, ctx.worst.name] : [...ctx.probes];
+    const guess = closest(s.probe, known);
+    throw new PickError(`no probe named "${s.probe}" (probes: ${known.join(', ')})${guess ? ` — did you mean "${guess}"?` : ''}`, text, probePos);
   }
   const namePos = r.pos + s.nameOffset;
   const sweepMetrics = [...new Set(ctx.columns.map((c) => c.metric))];
@@ -281,6 +287,9 @@ function resolveRef(r: RefSyntax, ctx: PickContext, text: string, unit: LimitUni
     }
   }
   if (!col) throw new PickError(`no sweep column for "${r.text}"`, text, r.pos);
+  if (isWorst && !ctx.worst!.columns.some((c) => c.key === col!.key)) {
+    throw new PickError(`"${col.metric}" has no worst over the receivers (it has no worse direction); the worst is kept for ${[...new Set(ctx.worst!.columns.map((c) => c.metric))].join(', ')}`, text, namePos);
+  }
   return { text: r.text, column: columnName(probe, col), unit: col.unit, kind: 'metric', key: col.key };
 }
 

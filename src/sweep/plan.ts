@@ -7,7 +7,7 @@
 import type { Net } from '../../sim/model.js';
 import type { CheckLimit } from '../measure/index.js';
 import { sha256Hex } from '../output/summary.js';
-import { checkBands, columnName, metricColumns, type MetricColumn } from './columns.js';
+import { checkBands, columnName, metricColumns, WORSE, type MetricColumn, type WorstOf } from './columns.js';
 import { checkScenarioValue, readScenario } from '../scenario/load.js';
 import { parseText, toPlain } from '../scenario/parse.js';
 import { Problems, ScenarioError, type Problem } from '../scenario/problems.js';
@@ -44,6 +44,8 @@ export interface SweepPlan {
   /** Settling bands measured besides ±5 %. */
   bands: CheckLimit[];
   columns: MetricColumn[];
+  /** With several receivers: the worst over their probes, as columns "worst.<key>" (null: one receiver). */
+  worst: WorstOf | null;
   /** sweep.csv header. */
   header: string[];
   hasChecks: boolean;
@@ -74,9 +76,22 @@ export function paramColumn(path: string, unit: string): string {
   return unit ? `${path}_${unit}` : path;
 }
 
-/** The probe at the receiver: the first probe "at": "receiver", else the last probe. */
+/** The probe at the main receiver: the first probe "at" it, else the last probe. */
 export function receiverProbe(net: Net): string {
-  return (net.probes.find((p) => p.at === 'receiver') ?? net.probes[net.probes.length - 1]!).name;
+  return (net.probes.find((p) => p.at === 'receiver' && p.receiver === undefined) ?? net.probes[net.probes.length - 1]!).name;
+}
+
+/**
+ * The worst-receiver aggregate when probes sit at two or more receivers: named "worst" (or
+ * "worst-receiver" when a probe already has that name), over the first probe at each receiver.
+ */
+export function worstOf(net: Net, columns: readonly MetricColumn[]): WorstOf | null {
+  const byReceiver = new Map<string, string>();
+  for (const p of net.probes) if (p.at === 'receiver' && !byReceiver.has(p.receiver ?? '')) byReceiver.set(p.receiver ?? '', p.name);
+  if (byReceiver.size < 2) return null;
+  const taken = new Set(net.probes.map((p) => p.name));
+  const name = taken.has('worst') ? 'worst-receiver' : 'worst';
+  return { name, probes: [...byReceiver.values()], columns: columns.filter((c) => WORSE[c.metric] !== undefined) };
 }
 
 /** Reads and checks the scenario; the raw value and hash come from the same bytes. */
@@ -141,9 +156,16 @@ export async function planSweep(req: SweepRequest): Promise<SweepPlan> {
   const anyThresholds = probes.some((p) => netThresholds(net, p) !== undefined);
   const columns = metricColumns(bands).filter((c) => anyThresholds || !c.needsThresholds);
   const defaultProbe = receiverProbe(net);
+  const worst = worstOf(net, columns);
   const params = mode === 'grid' ? axes.map((a) => ({ path: a.path, column: paramColumn(a.path, a.unit), unit: a.unit })) : planned.map((s) => ({ path: s.path, column: paramColumn(s.path, s.valueUnit), unit: s.valueUnit }));
-  const pick = pickSyntax ? resolvePick(pickSyntax, { probes, defaultProbe, columns, params }) : undefined;
-  const header = ['point', ...params.map((p) => p.column), ...probes.flatMap((p) => columns.map((c) => columnName(p, c))), ...(hasChecks ? ['checks_failed', 'checks_margin'] : [])];
+  const pick = pickSyntax ? resolvePick(pickSyntax, { probes, defaultProbe, columns, params, worst }) : undefined;
+  const header = [
+    'point',
+    ...params.map((p) => p.column),
+    ...probes.flatMap((p) => columns.map((c) => columnName(p, c))),
+    ...(worst ? worst.columns.map((c) => columnName(worst.name, c)) : []),
+    ...(hasChecks ? ['checks_failed', 'checks_margin'] : []),
+  ];
   const points = mode === 'grid' ? axes.reduce((n, a) => n * a.values.length, 1) : samples;
   const firstCheck = checks[0];
   const fallback = firstCheck && mode === 'montecarlo' ? (columns.find((c) => c.metric === firstCheck.metric && c.unit === (firstCheck.max ?? firstCheck.min)?.unit && !c.band)?.key ?? 'overshoot_pct') : 'overshoot_pct';
@@ -162,6 +184,7 @@ export async function planSweep(req: SweepRequest): Promise<SweepPlan> {
     defaultProbe,
     bands,
     columns,
+    worst,
     header,
     hasChecks,
     pick: req.pick ?? null,

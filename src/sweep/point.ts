@@ -4,7 +4,7 @@
 import { NetError, RunRefused, type NetProblem, type Overrun } from '../../sim/errors.js';
 import { simulate } from '../../sim/simulate.js';
 import { ScenarioError, type Problem } from '../scenario/problems.js';
-import { pointValues } from './columns.js';
+import { pointValues, worstValues } from './columns.js';
 import { pointAssignments, pointNet, type SweepPlan } from './plan.js';
 
 /** A sweep.csv row as numbers, aligned with `plan.header` (null: an empty cell). */
@@ -18,7 +18,8 @@ export function evaluatePoint(plan: SweepPlan, i: number, opts: PointOptions = {
   const net = pointNet(plan, i);
   const result = simulate(net, { force: opts.force });
   const pv = pointValues(net, result, plan.probes, plan.columns);
-  const row: SweepRow = [i, ...pointAssignments(plan, i).map((a) => a.value), ...pv.values];
+  const worst = plan.worst ? worstValues(plan.worst, plan.probes, plan.columns, pv.values) : [];
+  const row: SweepRow = [i, ...pointAssignments(plan, i).map((a) => a.value), ...pv.values, ...worst];
   if (plan.hasChecks) row.push(pv.checks?.failed ?? null, pv.checks?.margin ?? null);
   return row;
 }

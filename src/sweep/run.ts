@@ -113,7 +113,7 @@ function rowValues(header: readonly string[], row: SweepRow): Record<string, num
 export function pickReport(plan: SweepPlan, rows: readonly SweepRow[]): PickReport | null {
   if (plan.pick === null) return null;
   const params = plan.axes.map((a) => ({ path: a.path, column: paramColumn(a.path, a.unit), unit: a.unit }));
-  const pick = parsePick(plan.pick, { probes: plan.probes, defaultProbe: plan.defaultProbe, columns: plan.columns, params });
+  const pick = parsePick(plan.pick, { probes: plan.probes, defaultProbe: plan.defaultProbe, columns: plan.columns, params, worst: plan.worst });
   const o = selectBest(pick, plan.header, rows);
   const best = o.row === null ? null : { point: rows[o.row]![0] as number, objective: o.objective!, values: rowValues(plan.header, rows[o.row]!) };
   return {

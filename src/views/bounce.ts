@@ -57,7 +57,7 @@ function uniqueName(taken: Set<string>, base: string): string {
 
 /** Index of the first probe at the driver pin and at the receiver (−1 when there is none). */
 export function endProbeIndices(net: Net): { driver: number; receiver: number } {
-  return { driver: net.probes.findIndex((p) => p.at === 'driver'), receiver: net.probes.findIndex((p) => p.at === 'receiver') };
+  return { driver: net.probes.findIndex((p) => p.at === 'driver'), receiver: net.probes.findIndex((p) => p.at === 'receiver' && p.receiver === undefined) };
 }
 
 /** The net with a probe at the driver pin and one at the receiver added where it has none. */

@@ -114,7 +114,7 @@ export function eyeRunDuration(net: Net): number {
 
 /** The probe an eye is drawn for by default: the first one at the receiver, else the last probe. */
 export function defaultEyeProbe(net: Net): string | undefined {
-  return net.probes.find((p) => p.at === 'receiver')?.name ?? net.probes[net.probes.length - 1]?.name;
+  return net.probes.find((p) => p.at === 'receiver' && p.receiver === undefined)?.name ?? net.probes[net.probes.length - 1]?.name;
 }
 
 export interface EyeInput {

@@ -3,6 +3,7 @@
 // played in order; segment boundaries and lumped parts are marked and labelled; the time is in the title.
 import type { RouteMapRecord } from '../../sim/result.js';
 import { drawLinePlot, encodePng, formatSi, padDomain, Surface, THEME, type Annotation, type Marker } from '../render/index.js';
+import { pathMap } from './map.js';
 
 export interface FramesSpec {
   /** The scenario's title; the frame's time goes before it. */
@@ -84,7 +85,7 @@ export function routeMarks(
 
 /** The PNG of one frame: route-map row `row`. */
 function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [number, number]): Buffer {
-  const map = spec.routeMap;
+  const map = pathMap(spec.routeMap);
   const cols = map.positions.length;
   const values = map.values.data.subarray(row * cols, (row + 1) * cols);
   const end = map.positions[cols - 1] ?? 0;
@@ -99,7 +100,7 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   drawLinePlot(surface, { x: 0, y: 0, w: surface.width, h: surface.height }, {
     // the time leads, so a long scenario title is what gets shortened
     title: `t = ${formatSi(row * map.dtRow, 's')} · ${spec.title}`,
-    subtitle: `Voltage along the route, driver at 0 m · frame ${index + 1} of ${spec.count}`,
+    subtitle: `Voltage along the ${spec.routeMap.paths.length > 1 ? `main path (to ${spec.routeMap.paths[0].receiver})` : 'route'}, driver at 0 m · frame ${index + 1} of ${spec.count}`,
     x: { label: 'Distance from the driver', unit: 'm', domain: end > 0 ? [0, end] : [0, 1] },
     y: { label: 'Voltage', unit: 'V', domain: yDomain },
     series: [{ name: 'voltage', values, xs: map.positions, style: { width: 2 } }],

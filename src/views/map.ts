@@ -9,6 +9,7 @@
 // simulated for several clock periods), the stripes of a whole run are nearly flat. The map is then
 // drawn twice, side by side: the whole run, narrow, with the zoomed span outlined; and a zoom on the
 // first edge spanning a few round trips, where the stripes show their slope.
+import ndarray from 'ndarray';
 import type { RouteMapRecord } from '../../sim/result.js';
 import { buildFrame, drawFrameBackground, drawFrameForeground, fitText, TYPE, type Frame, type FrameSpec } from '../render/frame.js';
 import { colorNormalization, drawHeatMap, type ColorScaleSpec, type Grid2D } from '../render/heatmap.js';
@@ -42,6 +43,28 @@ export interface RouteMapDrawn {
   center: number;
   range: [number, number];
   grid: Grid2D;
+}
+
+/**
+ * The map along one path (driver pin → one receiver) as a map of its own: that path's columns in order,
+ * its items (branch points among them). A net without branches has one path: its map is returned as is.
+ */
+export function pathMap(rm: RouteMapRecord, path = 0): RouteMapRecord {
+  if (rm.paths.length <= 1) return rm;
+  const p = rm.paths[path];
+  const rows = rm.values.shape[0];
+  const nc = rm.values.shape[1];
+  const cols = p.columns.length;
+  const data = new Float64Array(rows * cols);
+  for (let r = 0; r < rows; r++) for (let c = 0; c < cols; c++) data[r * cols + c] = rm.values.data[r * nc + p.columns[c]];
+  return { positions: p.positions, dtRow: rm.dtRow, values: ndarray(data, [rows, cols]), items: p.items, paths: [{ ...p, columns: Int32Array.from(p.columns, (_, k) => k) }] };
+}
+
+/** The note a view adds when it draws only the main path of a branched net. */
+export function mainPathNote(rm: RouteMapRecord): string {
+  if (rm.paths.length <= 1) return '';
+  const others = rm.paths.slice(1).map((p) => p.receiver);
+  return ` Drawn along the main path, driver pin → ${rm.paths[0].receiver}; the branches to ${others.join(', ')} are not drawn (one panel per path is not done yet).`;
 }
 
 /**
@@ -164,7 +187,7 @@ function routeMarkers(rm: RouteMapRecord): Marker[] {
 
 /** Draw the map into `area` of `s`. */
 export function drawRouteMap(s: Surface, area: Rect, input: RouteMapInput): RouteMapDrawn {
-  const rm = input.routeMap;
+  const rm = pathMap(input.routeMap);
   const pad = 16;
   const center = idleLevel(rm);
   const { window, zoomed } = mapWindow(rm, input.zoom);
@@ -175,7 +198,8 @@ export function drawRouteMap(s: Surface, area: Rect, input: RouteMapInput): Rout
     { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
     input.title,
     `Voltage along the route over time: distance from the driver pin across, time running downward. ` +
-      `Colour centred on ${centerText}: warm above it, cool below. Dashed lines: ends of line segments; solid: lumped parts.`,
+      `Colour centred on ${centerText}: warm above it, cool below. Dashed lines: ends of line segments; solid: lumped parts.` +
+      mainPathNote(input.routeMap),
   );
   const panelTitleH = zoomed ? lineStep(s, 14, 6, true) : 0;
   const stripH = 2 * lineStep(s, TYPE.marker, 3) + 24;
