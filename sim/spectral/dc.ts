@@ -1,99 +1,84 @@
-// DC operating point of the net, computed on the chain itself (not on the time-domain ladder): the
-// source at a given value, every rail on, inductors shorts, capacitors open, each line its exact DC
-// two-port. Two sweeps of Thevenin equivalents, one from the driver and one from the receiver; a
-// node's voltage is the open-circuit voltage of the two equivalents in parallel. Ideal sources and
-// zero-ohm parts are handled exactly. A node with no DC path to any source or rail is put at 0 V, the
-// same convention as the time-domain engine (any such value is an equilibrium: only capacitors see it).
+// DC operating point of the net, computed on the compiled circuit itself (not on the time-domain
+// ladder): the source at a given value, every rail on, inductors shorts, capacitors open, each line its
+// exact DC two-port. One nodal solve (dc-network.ts): ideal sources and zero-ohm paths are handled
+// exactly, and a node with no DC path to any source or rail is put at 0 V, the same convention as the
+// time-domain engine (any such value is an equilibrium: only capacitors see it).
 //
-// A line at DC has Z' = R', Y' = G' (per-length.ts at s = 0), so u = ℓ√(R'G') and its chain matrix
-// is [cosh u, R'ℓ·sinh u/u; G'ℓ·sinh u/u, cosh u] (Pozar, Microwave Engineering, ch. 2, jω → 0).
-// A Thevenin source (E, R) seen through a two-port [A B; C D] becomes
-//   E' = E/(A + R·C),  R' = (B + R·D)/(A + R·C),
-// and an open end (R = ∞) becomes (0, D/C). Lines are symmetric, so the same map serves both sweeps.
-import { OPEN, parallel, type Thevenin } from '../thevenin.js';
-import type { Net, Part } from '../model.js';
+// A line at DC has Z' = R', Y' = G' (per-length.ts at s = 0), so u = ℓ√(R'G') and, with
+// Zc = √(R'/G'), its admittance parameters are y11 = y22 = 1/(Zc tanh u), y12 = −1/(Zc sinh u): a π of
+// 1/(Zc sinh u) in series and tanh(u/2)/Zc from each end to ground (Pozar, Microwave Engineering, ch. 2
+// and Table 4.2, jω → 0). R' = 0 makes the line a wire (its leakage G'ℓ all at one voltage), G' = 0 a
+// resistor R'ℓ. Inside a line, V(x) = [V1 sinh(γ(ℓ − x)) + V2 sinh(γx)] / sinh(γℓ).
+import { compileNet, RAIL, type Circuit } from '../circuit.js';
+import { DcNetwork } from '../dc-network.js';
+import type { Net } from '../model.js';
 import { signalFunction } from '../signals.js';
-import { compileChain, type Chain, type ChainItem } from './chain.js';
 import { perLength } from './per-length.js';
 
-
-/** tanh(u)/u, with its series near 0. */
-function tanhc(u: number): number {
-  if (u < 1e-4) return 1 - (u * u) / 3;
-  return Math.tanh(u) / u;
+/** R′ and G′ of a segment at DC. */
+function dcPerLength(c: Circuit, k: number): { r: number; g: number } {
+  const pl = perLength(c.segments[k].line, { re: 0, im: 0 });
+  return { r: pl.z.re, g: pl.y.re };
 }
 
-/** The Thevenin equivalent seen through a line piece of length `len` at DC. */
-function throughLine(t: Thevenin, item: Extract<ChainItem, { kind: 'line' }>, len: number): Thevenin {
-  const pl = perLength(item.line, { re: 0, im: 0 });
-  const r = pl.z.re;
-  const g = pl.y.re;
-  const u = len * Math.sqrt(r * g);
-  const bt = len * tanhc(u); // (sinh u / u)·ℓ / cosh u
-  if (t.r === Infinity) return g * bt > 0 ? { e: 0, r: 1 / (g * bt) } : OPEN;
-  const den = 1 + t.r * g * bt;
-  return { e: t.e / (Math.cosh(u) * den), r: (r * bt + t.r) / den };
+/** sinh(a)/sinh(c) for 0 ≤ a ≤ c, without overflow. */
+function sinhRatio(a: number, c: number): number {
+  if (c === 0) return 0;
+  if (c < 20) return Math.sinh(a) / Math.sinh(c);
+  return (Math.exp(a - c) * (1 - Math.exp(-2 * a))) / (1 - Math.exp(-2 * c));
 }
 
-/** DC equivalent of one part to its rail: open if it has a capacitor. */
-function partThevenin(p: Part): Thevenin {
-  return p.c !== undefined ? OPEN : { e: p.rail, r: p.r };
-}
-
-function partsThevenin(parts: Part[], where: string): Thevenin {
-  let t = OPEN;
-  for (const p of parts) t = parallel(t, partThevenin(p), where);
-  return t;
-}
-
-/** The equivalent seen through a whole item (either direction: every item is symmetric at DC). */
-function throughItem(t: Thevenin, item: ChainItem, where: string): Thevenin {
-  switch (item.kind) {
-    case 'line':
-      return throughLine(t, item, item.length);
-    case 'series': {
-      const p = item.part;
-      if (p.c !== undefined || t.r === Infinity) return OPEN;
-      return { e: t.e, r: t.r + p.r };
+/** DC voltage of every probe of a compiled circuit, with source k at sources[k] volts and every rail on. */
+export function dcProbeVoltages(c: Circuit, sources: readonly number[]): Float64Array {
+  const net = new DcNetwork(c.nodes.length);
+  c.segments.forEach((seg, k) => {
+    const { r, g } = dcPerLength(c, k);
+    const len = seg.length;
+    if (r === 0 || len === 0) {
+      net.short(seg.from, seg.to);
+      net.toRail(seg.from, g * len, 0);
+    } else if (g === 0) net.conductance(seg.from, seg.to, 1 / (r * len));
+    else {
+      const zc = Math.sqrt(r / g);
+      const u = len * Math.sqrt(r * g);
+      net.conductance(seg.from, seg.to, 1 / (zc * Math.sinh(u)));
+      net.toRail(seg.from, Math.tanh(u / 2) / zc, 0);
+      net.toRail(seg.to, Math.tanh(u / 2) / zc, 0);
     }
-    case 'shunt':
-      return parallel(t, partsThevenin(item.parts, where), where);
-  }
-}
-
-/** Voltage of the node joining two equivalents; a node with no DC path anywhere is at 0 V. */
-function join(a: Thevenin, b: Thevenin, where: string): number {
-  const t = parallel(a, b, where);
-  return t.r === Infinity ? 0 : t.e;
-}
-
-/** DC voltage of every probe of a compiled chain with the source at `source` volts and every rail on. */
-export function dcProbeVoltages(chain: Chain, source: number): Float64Array {
-  const n = chain.items.length;
-  const left: Thevenin[] = new Array(n + 1);
-  const right: Thevenin[] = new Array(n + 1);
-  left[0] = { e: source, r: chain.rs };
-  for (let i = 0; i < n; i++) left[i + 1] = throughItem(left[i], chain.items[i], `route[${i}]`);
-  right[n] = partsThevenin(chain.receiver, 'receiver');
-  for (let i = n - 1; i >= 0; i--) right[i] = throughItem(right[i + 1], chain.items[i], `route[${i}]`);
-  const out = new Float64Array(chain.anchors.length);
-  chain.anchors.forEach((a, p) => {
-    if (a.kind === 'node') {
-      out[p] = join(left[a.node], right[a.node], `probes[${p}]`);
-      return;
-    }
-    const item = chain.items[a.item] as Extract<ChainItem, { kind: 'line' }>;
-    const l = throughLine(left[a.item], item, a.position);
-    const r = throughLine(right[a.item + 1], item, a.rest);
-    out[p] = join(l, r, `probes[${p}]`);
   });
-  return out;
+  for (const p of c.parts) {
+    if (p.part.c !== undefined) continue; // a capacitor: open
+    const where = p.item;
+    if (p.q === RAIL) {
+      if (p.part.r > 0) net.toRail(p.p, 1 / p.part.r, p.part.rail);
+      else net.ideal(p.p, p.part.rail, where);
+    } else if (p.part.r > 0) net.conductance(p.p, p.q, 1 / p.part.r);
+    else net.short(p.p, p.q);
+  }
+  c.sources.forEach((s, k) => {
+    if (s.resistance > 0) net.toRail(s.node, 1 / s.resistance, sources[k]);
+    else net.ideal(s.node, sources[k], s.name);
+  });
+  const v = net.solve();
+  return Float64Array.from(c.probes, ({ place }) => {
+    if (place.kind === 'node') return v[place.node];
+    const seg = c.segments[place.segment];
+    const v1 = v[seg.from];
+    const v2 = v[seg.to];
+    const { r, g } = dcPerLength(c, place.segment);
+    if (r === 0 || seg.length === 0) return v1;
+    const x = place.position;
+    if (g === 0) return v1 + ((v2 - v1) * x) / seg.length;
+    const gamma = Math.sqrt(r * g);
+    const cl = gamma * seg.length;
+    return v1 * sinhRatio(gamma * (seg.length - x), cl) + v2 * sinhRatio(gamma * x, cl);
+  });
 }
 
 /**
- * DC operating point at every probe of the net: the source held at `source` volts (default: the
+ * DC operating point at every probe of the net: the driver held at `source` volts (default: the
  * signal's value at t = 0), every rail on.
  */
 export function dcOperatingPoint(net: Net, source = signalFunction(net.driver.signal)(0)): Float64Array {
-  return dcProbeVoltages(compileChain(net), source);
+  return dcProbeVoltages(compileNet(net), [source]);
 }

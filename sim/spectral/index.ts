@@ -1,17 +1,9 @@
 // Spectral (frequency-domain) solver: an independent cross-check of the time-domain engine for any
-// linear net. Chain (ABCD) matrices per frequency, DC operating point by Thevenin sweeps, time
+// linear net. Nodal matrices of exact line two-ports per frequency, a nodal DC operating point, time
 // response by the numerical Laplace transform (damped FFT, fft.js).
 export { perLength, widebandPerLength, type Complex, type PerLength } from './per-length.js';
-export {
-  chainEvaluator,
-  compileChain,
-  partImpedance,
-  transferFunctions,
-  type Chain,
-  type ChainEvaluator,
-  type ChainItem,
-  type ProbeAnchor,
-} from './chain.js';
+export { circuitEvaluator, transferFunctions, type CircuitEvaluator } from './nodal.js';
+export { partImpedance } from './two-port.js';
 export { dcOperatingPoint, dcProbeVoltages } from './dc.js';
 export {
   DEFAULT_MAX_POINTS,

@@ -10,7 +10,7 @@
 // of the numerical Laplace transform: a review", IEEE Trans. Power Delivery 23(4), 2008):
 //   1. sample Δvs on a grid t_n = n·h, n = 0 … N−1 (window T = N·h, N a power of 2), times e^{−σ t_n};
 //   2. FFT: the spectrum at s_k = σ + j·2πk/T;
-//   3. multiply by the transfer function H(s_k) of every probe (chain.ts);
+//   3. multiply by the transfer function H(s_k) of every probe (nodal.ts);
 //   4. inverse FFT, times e^{σ t_n}.
 // Errors and the choice of σ:
 //  - Wrap-around (time aliasing): the inverse FFT returns Σ_{p≥0} e^{−pσT}·y_T(t + pT), y_T the
@@ -36,7 +36,8 @@ import { RunRefused } from '../errors.js';
 import type { Net } from '../model.js';
 import type { ProbeRecord } from '../result.js';
 import { fastestEdge, signalFunction } from '../signals.js';
-import { chainEvaluator, compileChain } from './chain.js';
+import { compileNet } from '../circuit.js';
+import { circuitEvaluator } from './nodal.js';
 import { dcProbeVoltages } from './dc.js';
 
 export interface SpectralOptions {
@@ -125,15 +126,15 @@ export function spectralResponse(net: Net, opts: SpectralOptions): ProbeRecord {
 
 export function spectralRun(net: Net, opts: SpectralOptions): SpectralRun {
   const plan = planSpectral(net, opts);
-  const chain = compileChain(net);
-  const probes = chain.anchors.length;
+  const circuit = compileNet(net);
+  const probes = circuit.probes.length;
   const { samples } = opts;
   const source = signalFunction(net.driver.signal);
   const v0 = source(0);
-  const dc = dcProbeVoltages(chain, v0);
+  const dc = dcProbeVoltages(circuit, [v0]);
   const values = new Float64Array(probes * samples);
   for (let p = 0; p < probes; p++) values.fill(dc[p], p * samples, (p + 1) * samples);
-  const record: ProbeRecord = { names: chain.names, dtSample: opts.dtSample, values: ndarray(values, [probes, samples]) };
+  const record: ProbeRecord = { names: circuit.probes.map((p) => p.name), dtSample: opts.dtSample, values: ndarray(values, [probes, samples]) };
 
   const { points: N, step: h, sigma, oversample: M } = plan;
   // 1. damped samples of the source's change
@@ -154,7 +155,7 @@ export function spectralRun(net: Net, opts: SpectralOptions): SpectralRun {
   // 3. times H(s_k) for every probe
   const half = N / 2;
   const Y = new Float64Array(probes * 2 * (half + 1));
-  const ev = chainEvaluator(chain);
+  const ev = circuitEvaluator(circuit);
   const H = new Float64Array(2 * probes);
   const dw = (2 * Math.PI) / plan.window;
   for (let k = 0; k <= half; k++) {
