@@ -204,41 +204,41 @@ export class LinearCluster implements LumpedCluster {
   }
 
   advance(v: Float64Array, i: Float64Array, sources: Float64Array): void {
-    const { n, nn, rhs, x, nodes, kap, current, bp, bq, geq, jh } = this;
+    const { n, nn, nc, rhs, x, nodes, hist, lam, kap, incStart, incCell, incSign, current, bp, bq, bSource, bRail, geq, kL, kC, jh, vL, vC, minv } = this;
+    const nb = bp.length;
     for (let a = 0; a < nn; a++) {
       let sum = 0;
-      for (let e = this.incStart[a]; e < this.incStart[a + 1]; e++) sum += this.incSign[e] * i[this.incCell[e]];
-      rhs[a] = this.hist[a] * v[nodes[a]] + this.lam[a] * sum;
+      for (let e = incStart[a]; e < incStart[a + 1]; e++) sum += incSign[e] * i[incCell[e]];
+      rhs[a] = hist[a] * v[nodes[a]] + lam[a] * sum;
     }
     // companion branches: i(n+1) = geq·(vp − vq) + J, J = −h/Z, h = vC − vL + (Δt/2C − 2L/Δt)·i(n)
-    for (let k = 0; k < this.nc; k++) {
+    for (let k = 0; k < nc; k++) {
       const ik = current[k];
-      const j = -geq[k] * (this.vC[k] - this.vL[k] + (this.kC[k] - this.kL[k]) * ik);
+      const j = -geq[k] * (vC[k] - vL[k] + (kC[k] - kL[k]) * ik);
       jh[k] = j;
       const p = bp[k];
       const q = bq[k];
       if (p >= 0) {
         rhs[p] -= j + kap[p] * ik;
-        if (q < 0) rhs[p] += geq[k] * this.bRail[k];
+        if (q < 0) rhs[p] += geq[k] * bRail[k];
       }
       if (q >= 0) {
         rhs[q] += j + kap[q] * ik;
-        if (p < 0) rhs[q] += geq[k] * sources[this.bSource[k]];
+        if (p < 0) rhs[q] += geq[k] * sources[bSource[k]];
       }
     }
     // ideal branches: their current is an unknown; their row says vp − vq = 0
-    for (let k = this.nc; k < bp.length; k++) {
+    for (let k = nc; k < nb; k++) {
       const ik = current[k];
       const p = bp[k];
       const q = bq[k];
       let known = 0;
       if (p >= 0) rhs[p] -= kap[p] * ik;
-      else known -= sources[this.bSource[k]];
+      else known -= sources[bSource[k]];
       if (q >= 0) rhs[q] += kap[q] * ik;
-      else known += this.bRail[k];
-      rhs[nn + k - this.nc] = known;
+      else known += bRail[k];
+      rhs[nn + k - nc] = known;
     }
-    const minv = this.minv;
     for (let r = 0; r < n; r++) {
       let acc = 0;
       const o = r * n;
@@ -246,23 +246,18 @@ export class LinearCluster implements LumpedCluster {
       x[r] = acc;
     }
     for (let a = 0; a < nn; a++) v[nodes[a]] = x[a];
-    this.updateBranches(sources);
-  }
-
-  /** Each branch's new current and its inductor and capacitor voltages (trapezoidal rule). */
-  private updateBranches(sources: Float64Array): void {
-    const { x, current, bp, bq } = this;
-    for (let k = 0; k < bp.length; k++) {
+    // each branch's new current and its inductor and capacitor voltages (trapezoidal rule):
+    // vL(n+1) = 2L/Δt·(i(n+1) − i(n)) − vL(n);  vC(n+1) = vC(n) + Δt/(2C)·(i(n+1) + i(n))
+    for (let k = 0; k < nb; k++) {
       let inew: number;
-      if (k < this.nc) {
-        const vp = bp[k] >= 0 ? x[bp[k]] : sources[this.bSource[k]];
-        const vq = bq[k] >= 0 ? x[bq[k]] : this.bRail[k];
-        inew = this.geq[k] * (vp - vq) + this.jh[k];
-      } else inew = x[this.nn + k - this.nc];
+      if (k < nc) {
+        const vp = bp[k] >= 0 ? x[bp[k]] : sources[bSource[k]];
+        const vq = bq[k] >= 0 ? x[bq[k]] : bRail[k];
+        inew = geq[k] * (vp - vq) + jh[k];
+      } else inew = x[nn + k - nc];
       const iold = current[k];
-      // vL(n+1) = 2L/Δt·(i(n+1) − i(n)) − vL(n);  vC(n+1) = vC(n) + Δt/(2C)·(i(n+1) + i(n))
-      this.vL[k] = this.kL[k] * (inew - iold) - this.vL[k];
-      this.vC[k] += this.kC[k] * (inew + iold);
+      vL[k] = kL[k] * (inew - iold) - vL[k];
+      vC[k] += kC[k] * (inew + iold);
       current[k] = inew;
     }
   }
