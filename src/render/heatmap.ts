@@ -198,6 +198,20 @@ export function colorBarTicks(lo: number, hi: number, spec: ColorScaleSpec, targ
   return { values, labels: values.map((v) => String(v)), step, exponent: 0, unit: spec.unit ?? '' };
 }
 
+/**
+ * A colour bar on its own, for several heat maps that share one scale (drawn without their own bars):
+ * the bar and its labels fill `box` from the left; returns the width it needs at height `h`.
+ */
+export function drawColorScale(s: Surface, box: Rect, lo: number, hi: number, spec: ColorScaleSpec): void {
+  drawColorBar(s, box, lo, hi, lut(spec.map ?? (spec.kind === 'diverging' ? coolWarm : viridis)), spec);
+}
+
+/** The width a colour bar of this range and height needs, labels and title included. */
+export function colorScaleWidth(s: Surface, lo: number, hi: number, spec: ColorScaleSpec, h: number): number {
+  const ticks = colorBarTicks(lo, hi, spec, targetTickCount(h, 60));
+  return colorBarWidth(s, ticks.labels, axisTitle(spec.label, ticks.unit));
+}
+
 function drawColorBar(s: Surface, box: Rect, lo: number, hi: number, table: Uint8Array, spec: ColorScaleSpec): void {
   const x0 = box.x, top = box.y, h = box.h;
   const bar = linearScale([lo, hi], [top + h - 1, top]);

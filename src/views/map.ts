@@ -12,7 +12,7 @@
 import ndarray from 'ndarray';
 import type { RouteMapRecord } from '../../sim/result.js';
 import { buildFrame, drawFrameBackground, drawFrameForeground, fitText, TYPE, type Frame, type FrameSpec } from '../render/frame.js';
-import { colorNormalization, drawHeatMap, type ColorScaleSpec, type Grid2D } from '../render/heatmap.js';
+import { colorNormalization, colorScaleWidth, drawColorScale, drawHeatMap, type ColorScaleSpec, type Grid2D } from '../render/heatmap.js';
 import { drawMarkerLines, type Marker } from '../render/marks.js';
 import { coolWarm, THEME } from '../render/palette.js';
 import { encodePng, Surface, type Rect } from '../render/surface.js';
@@ -37,6 +37,8 @@ export interface RouteMapDrawn {
   frame: Frame;
   /** The whole-run panel, when the detailed map is a zoom. */
   overview?: Frame;
+  /** A branched net: every path's panel, the main path's first (`frame` is that one). */
+  panels?: Frame[];
   /** Time span of the detailed map (s). */
   window: [number, number];
   /** The voltage the colour scale is centred on, and the range it spans. */
@@ -60,12 +62,6 @@ export function pathMap(rm: RouteMapRecord, path = 0): RouteMapRecord {
   return { positions: p.positions, dtRow: rm.dtRow, values: ndarray(data, [rows, cols]), items: p.items, paths: [{ ...p, columns: Int32Array.from(p.columns, (_, k) => k) }] };
 }
 
-/** The note a view adds when it draws only the main path of a branched net. */
-export function mainPathNote(rm: RouteMapRecord): string {
-  if (rm.paths.length <= 1) return '';
-  const others = rm.paths.slice(1).map((p) => p.receiver);
-  return ` Drawn along the main path, driver pin → ${rm.paths[0].receiver}; the branches to ${others.join(', ')} are not drawn (one panel per path is not done yet).`;
-}
 
 /**
  * The map resampled to `columns` equal steps of distance (linear interpolation between the recorded
@@ -187,7 +183,8 @@ function routeMarkers(rm: RouteMapRecord): Marker[] {
 
 /** Draw the map into `area` of `s`. */
 export function drawRouteMap(s: Surface, area: Rect, input: RouteMapInput): RouteMapDrawn {
-  const rm = pathMap(input.routeMap);
+  if (input.routeMap.paths.length > 1) return drawPathPanels(s, area, input);
+  const rm = input.routeMap;
   const pad = 16;
   const center = idleLevel(rm);
   const { window, zoomed } = mapWindow(rm, input.zoom);
@@ -198,8 +195,7 @@ export function drawRouteMap(s: Surface, area: Rect, input: RouteMapInput): Rout
     { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
     input.title,
     `Voltage along the route over time: distance from the driver pin across, time running downward. ` +
-      `Colour centred on ${centerText}: warm above it, cool below. Dashed lines: ends of line segments; solid: lumped parts.` +
-      mainPathNote(input.routeMap),
+      `Colour centred on ${centerText}: warm above it, cool below. Dashed lines: ends of line segments; solid: lumped parts.`,
   );
   const panelTitleH = zoomed ? lineStep(s, 14, 6, true) : 0;
   const stripH = 2 * lineStep(s, TYPE.marker, 3) + 24;
@@ -238,28 +234,70 @@ export function drawRouteMap(s: Surface, area: Rect, input: RouteMapInput): Rout
   return { frame, overview, window, center, range: [norm.lo, norm.hi], grid };
 }
 
-/** "0–59.9 ns", "1.2–10.1 ns": both ends in the unit of the later one. */
-export function timeSpan(t0: number, t1: number): string {
-  const e = engineeringExponent(t1);
-  const k = Math.pow(10, e);
-  const num = (v: number) => String(Number((v / k).toPrecision(3)));
-  return `${num(t0)}–${num(t1)} ${siPrefix(e)}s`;
+/**
+ * A branched net: one panel per path from the driver pin to a receiver, side by side on one time axis
+ * and one colour scale (the bar at the right), each with its own distance axis, its items in a strip
+ * above it and its branch points marked (solid lines named after the branch item). The time span is
+ * the main path's (zoomed on the first edge when the run is long, as for one route).
+ */
+function drawPathPanels(s: Surface, area: Rect, input: RouteMapInput): RouteMapDrawn {
+  const rm = input.routeMap;
+  const pad = 16;
+  const maps = rm.paths.map((_, k) => pathMap(rm, k));
+  const center = idleLevel(rm);
+  const { window, zoomed } = mapWindow(maps[0], input.zoom);
+  const centerText = center === 0 ? '0 V' : `the idle level ${formatSi(center, 'V', 3)} (mean along the net before the first edge)`;
+  const titleH =
+    pad +
+    drawTitleBlock(
+      s,
+      { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
+      input.title,
+      `Voltage along every path from the driver pin to a receiver (one panel each, the main receiver's first), time running downward` +
+        `${zoomed ? `, zoomed on the first edge (${timeSpan(window[0], window[1])})` : ''}. One colour scale centred on ${centerText}. ` +
+        `Dashed lines: ends of line segments; solid: parts and branch points, where the other paths leave.`,
+    );
+  const panelTitleH = lineStep(s, 14, 6, true);
+  const stripH = 2 * lineStep(s, TYPE.marker, 3) + 24;
+  const top = area.y + titleH + panelTitleH + stripH;
+  const h = area.y + area.h - top;
+  const perPanel = Math.max(120, Math.round((area.w * 1.5) / maps.length));
+  const grids = maps.map((m) => routeMapGrid(m, Math.min(1600, perPanel)));
+  const color: ColorScaleSpec = { kind: 'diverging', label: 'Voltage', unit: 'V', center };
+  const all = new Float64Array(grids.reduce((n, g) => n + g.values.length, 0));
+  grids.reduce((o, g) => (all.set(g.values, o), o + g.values.length), 0);
+  const norm = colorNormalization(all, color);
+  const barW = colorScaleWidth(s, norm.lo, norm.hi, color, h);
+  const w = (area.w - barW - 8) / maps.length;
+  const panels: Frame[] = [];
+  maps.forEach((m, k) => {
+    const g = grids[k];
+    const x = { label: 'Distance from the driver pin', unit: 'm', domain: g.xRange } as const;
+    const box: Rect = { x: Math.round(area.x + k * w), y: top, w: Math.round(w), h };
+    const f = drawPlainMap(s, box, g, norm, x, [window[1], window[0]], routeMarkers(m));
+    drawRouteStrip(s, f, m, { x: f.plot.x, y: top - stripH, w: f.plot.w, h: stripH - 6 });
+    const heading = `${k === 0 ? 'Main path' : 'Branch'} → ${rm.paths[k].receiver}`;
+    s.text(fitText(s, heading, 14, f.plot.w + 40, true), f.plot.x, area.y + titleH, { size: 14, bold: true, baseline: 'top' });
+    panels.push(f);
+  });
+  const frame = panels[0];
+  drawColorScale(s, { x: area.x + area.w - barW, y: frame.plot.y, w: barW, h: frame.plot.h }, norm.lo, norm.hi, color);
+  return { frame, panels, window, center, range: [norm.lo, norm.hi], grid: grids[0] };
 }
 
-/** The whole run as a narrow heat map without a colour bar (it shares the detailed map's), zoom outlined. */
-function drawOverview(
-  s: Surface,
-  area: Rect,
-  g: Grid2D,
-  norm: { t: (v: number) => number },
-  x: FrameSpec['x'],
-  yDomain: readonly [number, number],
-  markers: readonly Marker[],
-  window: readonly [number, number],
-): Frame {
+/** A heat map of `g` in `area` without a colour bar (several panels share one), with marker lines. */
+function drawPlainMap(s: Surface, area: Rect, g: Grid2D, norm: { t: (v: number) => number }, x: FrameSpec['x'], yDomain: readonly [number, number], markers: readonly Marker[]): Frame {
   const spec: FrameSpec = { x, y: { label: 'Time', unit: 's', domain: yDomain } };
   const f = buildFrame(s, area, spec);
   drawFrameBackground(s, f, { grid: false, zeroLine: false });
+  paintGrid(s, f, g, norm);
+  drawMarkerLines(s, f, markers);
+  drawFrameForeground(s, f, spec);
+  return f;
+}
+
+/** Paints the grid's cells into the frame's plot, nearest cell per pixel, on the diverging palette. */
+function paintGrid(s: Surface, f: Frame, g: Grid2D, norm: { t: (v: number) => number }): void {
   const { plot } = f;
   const lut = new Uint8Array(256 * 3);
   for (let i = 0; i < 256; i++) {
@@ -284,6 +322,32 @@ function drawOverview(
       data[k + 3] = 255;
     }
   }
+}
+
+/** "0–59.9 ns", "1.2–10.1 ns": both ends in the unit of the later one. */
+export function timeSpan(t0: number, t1: number): string {
+  const e = engineeringExponent(t1);
+  const k = Math.pow(10, e);
+  const num = (v: number) => String(Number((v / k).toPrecision(3)));
+  return `${num(t0)}–${num(t1)} ${siPrefix(e)}s`;
+}
+
+/** The whole run as a narrow heat map without a colour bar (it shares the detailed map's), zoom outlined. */
+function drawOverview(
+  s: Surface,
+  area: Rect,
+  g: Grid2D,
+  norm: { t: (v: number) => number },
+  x: FrameSpec['x'],
+  yDomain: readonly [number, number],
+  markers: readonly Marker[],
+  window: readonly [number, number],
+): Frame {
+  const spec: FrameSpec = { x, y: { label: 'Time', unit: 's', domain: yDomain } };
+  const f = buildFrame(s, area, spec);
+  drawFrameBackground(s, f, { grid: false, zeroLine: false });
+  const { plot } = f;
+  paintGrid(s, f, g, norm);
   drawMarkerLines(s, f, markers);
   // the zoomed span
   const y0 = Math.round(f.y.map(window[0])), y1 = Math.round(f.y.map(window[1]));
@@ -330,7 +394,7 @@ function drawRouteStrip(s: Surface, f: Frame, rm: RouteMapRecord, box: Rect): vo
     labelAt(it.name, px, { bold: true, color: THEME.text, align: 'center', stem: true });
   }
   labelAt('driver pin', f.plot.x, { bold: false, color: THEME.mutedText, align: 'left', stem: false });
-  labelAt('receiver', right, { bold: false, color: THEME.mutedText, align: 'right', stem: false });
+  labelAt(rm.paths.length === 1 && rm.paths[0].receiver !== 'receiver' ? `receiver ${rm.paths[0].receiver}` : 'receiver', right, { bold: false, color: THEME.mutedText, align: 'right', stem: false });
 }
 
 /** The space–time map as PNG bytes (default 1200 × 800). */

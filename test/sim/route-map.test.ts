@@ -59,3 +59,48 @@ describe('route map', () => {
     expect(map.values.get(before, c)).toBeCloseTo(0.5, 6);
   });
 });
+
+// A T of three equal 50 Ω lines with matched ends and a matched source: V+ = V/2 runs down the trunk,
+// and at the T the wave going on into each arm is (1 + Γ)·V/2 = (2/3)·V/2 = V/3, Γ = −1/3 (lattice
+// method, Pozar ch. 2). Each path's columns must show the front at distance/v and that level beyond
+// the junction, the branch point listed where the other path leaves.
+describe('route map of a branched net', () => {
+  const tpd = 5e-9;
+  const arm = (name: string, len: number) => ({ kind: 'line' as const, name, line: lineOf(50, tpd), length: len });
+  const map = simulate(
+    net({
+      signal: stepSignal(1, 0.05e-9, 0.1e-9),
+      rs: 50,
+      route: [arm('trunk', 0.1), { kind: 'branch', name: 'tee', branches: [{ route: [arm('side', 0.06)], receiver: { name: 'rx2', parts: [part({ r: 50 })] } }] }, arm('main', 0.08)],
+      receiver: [part({ r: 50 })],
+      duration: 2e-9,
+    }),
+    { routeMap: { columns: 60, rows: 600 } },
+  ).routeMap!;
+
+  it('lists one path per receiver with its columns, distances, items and branch point', () => {
+    expect(map.paths.map((p) => p.receiver)).toEqual(['receiver', 'rx2']);
+    expect(map.paths[0].items.map((i) => i.name)).toEqual(['trunk', 'tee', 'main']);
+    expect(map.paths[1].items.map((i) => i.name)).toEqual(['trunk', 'tee', 'side']);
+    expect(map.paths[0].junctions).toEqual([{ item: 'tee', at: expect.closeTo(0.1, 12), receivers: ['rx2'] }]);
+    expect(map.paths[1].junctions).toEqual([{ item: 'tee', at: expect.closeTo(0.1, 12), receivers: ['receiver'] }]);
+    for (const p of map.paths) {
+      expect(p.positions[0]).toBe(0);
+      for (let k = 1; k < p.positions.length; k++) expect(p.positions[k]).toBeGreaterThanOrEqual(p.positions[k - 1]);
+    }
+    expect(map.paths[0].positions[map.paths[0].positions.length - 1]).toBeCloseTo(0.18, 12);
+    expect(map.paths[1].positions[map.paths[1].positions.length - 1]).toBeCloseTo(0.16, 12);
+  });
+
+  it('shows the front at distance/v along each path and V/3 beyond the junction', () => {
+    for (const p of map.paths) {
+      const n = p.columns.length;
+      const c = n - 2; // near the receiver end, past the junction
+      const x = p.positions[c];
+      const t = 0.1e-9 + 0.0625e-9 / 2 + x * tpd; // the ramp's middle arrives at x/v
+      const r = Math.round(t / map.dtRow);
+      expect(map.values.get(r - 10, p.columns[c])).toBeCloseTo(0, 3);
+      expect(map.values.get(r + 40, p.columns[c])).toBeCloseTo(1 / 3, 3);
+    }
+  });
+});

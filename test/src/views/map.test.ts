@@ -203,3 +203,35 @@ describe('zoom on the first edge', () => {
     expect(png.readUInt32BE(20)).toBe(600);
   });
 });
+
+describe('a branched net: one panel per path', () => {
+  // A T of three equal 50 Ω lines with matched ends (lattice method, Pozar ch. 2): beyond the junction
+  // each arm carries (1 + Γ)·V⁺ = (2/3)·0.5 V = 1/3 V. The branch's panel must show that level past
+  // the junction on its own distance axis (the arm's length, not the main path's), on the shared scale.
+  it('draws the main path first, each panel on its own distance axis, with the arms at V/3', () => {
+    const arm = (name: string, len: number) => ({ kind: 'line' as const, name, line: lineOf(50, TPD), length: len });
+    const rm = simulate(
+      net({
+        signal: stepSignal(1, 100e-12, 0.2e-9),
+        rs: 50,
+        route: [arm('trunk', 0.3), { kind: 'branch', name: 'tee', branches: [{ route: [arm('side', 0.1)], receiver: { name: 'rx2', parts: [part({ r: 50 })] } }] }, arm('main', 0.2)],
+        receiver: [part({ r: 50 })],
+        duration: 5e-9,
+      }),
+      { routeMap: {} },
+    ).routeMap!;
+    const s = new Surface(1200, 800);
+    const d = drawRouteMap(s, { x: 0, y: 0, w: 1200, h: 800 }, { title: 'tee', routeMap: rm, zoom: 'none' });
+    const [main, branch] = d.panels!;
+    expect(d.panels).toHaveLength(2);
+    expect(main.x.domain[1]).toBeCloseTo(0.5, 2); // trunk + main
+    expect(branch.x.domain[1]).toBeCloseTo(0.4, 2); // trunk + side
+    expect(branch.plot.x).toBeGreaterThan(main.plot.x + main.plot.w);
+    // 0.35 m along each path, 0.5 ns after the front passed: 1/3 V on both arms (and the same scale)
+    const t = 0.2e-9 + 0.0625e-9 + 0.35 * TPD + 0.5e-9;
+    for (const f of [main, branch]) {
+      const v = pixelValue(s, Math.round(f.x.map(0.35)), Math.round(f.y.map(t)), d.range);
+      expect(Math.abs(v - 1 / 3)).toBeLessThan(0.02); // 8-bit colour: about 1/255 of the ±0.5 V range
+    }
+  });
+});
