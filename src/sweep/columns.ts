@@ -157,6 +157,30 @@ export interface CheckSummary {
   margin: number | null;
 }
 
+/**
+ * The check that decides a sample's margin (see checkSummary): the first unmeasurable one, else the one
+ * with the largest normalised excess; null without checks.
+ */
+export function decidingCheck(checks: readonly CheckSpec[], results: readonly CheckResult[]): number | null {
+  let best: number | null = null;
+  let worst = -Infinity;
+  for (let i = 0; i < results.length; i++) {
+    const r = results[i]!;
+    const spec = checks[i]!;
+    if (r.measured === null) return i;
+    const scale = (l: CheckLimit) => (l.value === 0 ? 1 : Math.abs(l.value));
+    let m = -Infinity;
+    if (spec.max && spec.max.unit === r.unit) m = Math.max(m, (r.measured - spec.max.value) / scale(spec.max));
+    if (spec.min && spec.min.unit === r.unit) m = Math.max(m, (spec.min.value - r.measured) / scale(spec.min));
+    if (!spec.max && !spec.min) m = r.pass ? -1 : 1;
+    if (best === null || m > worst) {
+      best = i;
+      worst = m;
+    }
+  }
+  return best;
+}
+
 export function checkSummary(checks: readonly CheckSpec[], results: readonly CheckResult[]): CheckSummary {
   let margin: number | null = -Infinity;
   results.forEach((r, i) => {

@@ -48,12 +48,14 @@ export function formatSweepReport(o: SweepOutcome, info: { jobs?: number; second
         return `${s.path} = ${formatColumnValue(c, y.worst!.values[c] ?? null)}`;
       });
       const m = y.worst.margin;
+      const c = y.worst.check;
+      const which = c ? ` ${c.metric} at ${c.probe}: ${c.measuredText} against ${c.limit}` : '';
       const how =
         m === null
-          ? 'a check could not be measured'
+          ? `a check could not be measured${which ? `:${which}` : ''}`
           : y.worst.failed
-            ? `${y.worst.failed} check(s) fail, the worst by ${Number((100 * m).toPrecision(3))} % of its limit`
-            : `every check passes; the closest is ${Number((-100 * m).toPrecision(3))} % of its limit inside it`;
+            ? `${y.worst.failed} check(s) fail; the worst,${which || ' one check'}, by ${Number((100 * m).toPrecision(3))} % of its limit`
+            : `every check passes; the closest,${which || ' one check'}, is ${Number((-100 * m).toPrecision(3))} % of its limit inside it`;
       lines.push(`  worst    sample ${y.worst.point} (${params.join(', ')}): ${how}`);
     }
   }

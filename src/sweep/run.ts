@@ -21,6 +21,8 @@ import { measureNet } from '../output/measure-net.js';
 import { crossingLevels, netSettledLevels } from '../output/net-levels.js';
 import { toolInfo, type ToolInfo } from '../output/tool.js';
 import { ScenarioError } from '../scenario/problems.js';
+import { netChecks } from '../scenario/checks.js';
+import { decidingCheck } from './columns.js';
 import { parsePick, selectBest } from './pick.js';
 import { describeAssignments, paramColumn, planSweep, pointAssignments, pointNet, pointProblems, type Shard, type SweepPlan, type SweepRequest } from './plan.js';
 import type { SweepRow } from './point.js';
@@ -55,7 +57,25 @@ export interface YieldReport {
   /** passed / samples. */
   fraction: number;
   /** The sample with the largest normalised check excess (see columns.ts checkSummary). */
-  worst: { point: number; failed: number | null; margin: number | null; values: Record<string, number | null> } | null;
+  worst: {
+    point: number;
+    failed: number | null;
+    margin: number | null;
+    values: Record<string, number | null>;
+    /** The check that decides it (found when the worst sample is simulated again for worst/), with its limit and value. */
+    check?: WorstCheck | null;
+  } | null;
+}
+
+/** The deciding check of the worst Monte Carlo sample. */
+export interface WorstCheck {
+  probe: string;
+  metric: string;
+  /** "max 10 %". */
+  limit: string;
+  measured: number | null;
+  measuredText: string;
+  pass: boolean;
 }
 
 export interface SweepResultSection {
@@ -144,8 +164,17 @@ export function yieldReport(plan: SweepPlan, rows: readonly SweepRow[]): YieldRe
   };
 }
 
-/** Simulates one point again and writes its run outputs (probes.csv, waveforms.png, summary.json). */
-async function writePointRun(plan: SweepPlan, point: number, dir: string, what: string, opts: { force?: boolean; width?: number; height?: number }): Promise<string[]> {
+/**
+ * Simulates one point again and writes its run outputs (probes.csv, waveforms.png, summary.json); returns
+ * the files and the check that decides the point's margin (null without checks).
+ */
+async function writePointRun(
+  plan: SweepPlan,
+  point: number,
+  dir: string,
+  what: string,
+  opts: { force?: boolean; width?: number; height?: number },
+): Promise<{ files: string[]; deciding: WorstCheck | null }> {
   const net = pointNet(plan, point);
   const result = simulate(net, { force: opts.force });
   const title = `${net.title} — ${what}: point ${point}, ${describeAssignments(pointAssignments(plan, point))}`;
@@ -157,9 +186,13 @@ async function writePointRun(plan: SweepPlan, point: number, dir: string, what: 
     record: result.record,
     crossingLevels: crossingLevels(net, settled),
   });
-  addMeasurementSections(summary, net, result, measureNet(net, result, [], settled));
+  const measured = measureNet(net, result, [], settled);
+  addMeasurementSections(summary, net, result, measured);
   const png = await renderResult(title, result, opts);
-  return writeRunOutputs(dir, { title, result, summary }, png);
+  const files = await writeRunOutputs(dir, { title, result, summary }, png);
+  const k = decidingCheck(netChecks(net), measured.results);
+  const r = k === null ? null : measured.results[k]!;
+  return { files, deciding: r && { probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass } };
 }
 
 function sweepJson(file: SweepFile): string {
@@ -181,10 +214,14 @@ export async function writeSweepOutputs(outDir: string, plan: SweepPlan, shard: 
       const pick = pickReport(plan, rows);
       const yld = yieldReport(plan, rows);
       result = { pick, yield: yld };
+      if (pick?.best) files.push(...(await writePointRun(plan, pick.best.point, join(outDir, SWEEP_FILES.best), 'best', opts)).files);
+      if (yld?.worst) {
+        const w = await writePointRun(plan, yld.worst.point, join(outDir, SWEEP_FILES.worst), 'worst case', opts);
+        files.push(...w.files);
+        yld.worst.check = w.deciding;
+      }
       const mark = pick?.best ? { point: pick.best.point, label: `best: point ${pick.best.point}` } : null;
-      await batch.stage(join(outDir, SWEEP_FILES.png), await renderSweepPlot(plan, rows, { mark, width: opts.width, height: opts.height }));
-      if (pick?.best) files.push(...(await writePointRun(plan, pick.best.point, join(outDir, SWEEP_FILES.best), 'best', opts)));
-      if (yld?.worst) files.push(...(await writePointRun(plan, yld.worst.point, join(outDir, SWEEP_FILES.worst), 'worst case', opts)));
+      await batch.stage(join(outDir, SWEEP_FILES.png), await renderSweepPlot(plan, rows, { mark, yield: yld, width: opts.width, height: opts.height }));
     }
     const file: SweepFile = { format: plan.format, tool: toolInfo(), shard, rows: rows.length, result, plan };
     await batch.stage(join(outDir, SWEEP_FILES.json), sweepJson(file));

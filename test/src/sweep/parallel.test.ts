@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { mergeSweeps, planSweep, runPoints, runSweep, SweepInputError } from '../../../src/sweep/index.js';
 import { CLOCK_WITH_CHECKS, SERIES_NET, TempDirs, writeJson } from './fixtures.js';
+import { formatSweepReport } from '../../../src/sweep/report.js';
 
 const tmp = new TempDirs();
 afterAll(() => tmp.cleanup());
@@ -83,5 +84,12 @@ describe('Monte Carlo', () => {
     const margins = a.rows.map((r) => r[mi] ?? Infinity);
     expect(y.worst!.point).toBe(margins.indexOf(Math.max(...(margins as number[]))));
     expect(readdirSync(join(dir, 'a', 'worst')).sort()).toEqual(['probes.csv', 'summary.json', 'waveforms.png']);
+    // It names the check that decides it, with its limit and value (the worst sample fails: margin > 0),
+    // and the terminal's worst line says the same.
+    const check = y.worst!.check!;
+    expect(check).toMatchObject({ probe: 'rx', pass: false });
+    expect(['max 6 %', 'min 500 mV']).toContain(check.limit);
+    const text = formatSweepReport(a);
+    expect(text).toContain(`the worst, ${check.metric} at rx: ${check.measuredText} against ${check.limit}`);
   });
 });
