@@ -41,6 +41,8 @@ export interface FrameSpec {
   bottomReserve?: number;
   /** Height of a band above the plot (labels of vertical markers); 0 for none. */
   topReserve?: number;
+  /** Fixed left and right pixel edges of the plot area (see FrameLayoutInput.columns). */
+  columns?: { left: number; right: number };
 }
 
 export interface Frame {
@@ -98,6 +100,7 @@ export function buildFrame(s: Surface, area: Rect, spec: FrameSpec): Frame {
       bottomReserve: spec.bottomReserve ?? 0,
       topReserve: spec.topReserve ?? 0,
       xOverhang,
+      columns: spec.columns,
     });
     const plot = layout.plot;
     const xTicks = axisTicks(spec.x.domain[0], spec.x.domain[1], {

@@ -1,7 +1,7 @@
 // ladderwave's own small plotting library: PNG line plots and heat maps.
 // Plot functions take plain data (typed arrays, names, units) and return PNG bytes.
 export { renderWaveforms, drawWaveforms, type WaveformsSpec } from './waveforms.js';
-export { linePlot, drawLinePlot, lineDomains, type LinePlotSpec, type LineSeries, type ImageSize } from './lineplot.js';
+export { linePlot, drawLinePlot, lineDomains, alignedColumns, type LinePlotSpec, type LineSeries, type ImageSize } from './lineplot.js';
 export { heatMap, drawHeatMap, colorNormalization, colorBarTicks, type HeatMapSpec, type Grid2D, type ColorScaleSpec } from './heatmap.js';
 export { type Marker, type Annotation, type LegendEntry, drawLegend, drawMarkerLines, drawMarkerLabels, drawAnnotations, fitText } from './marks.js';
 export { buildFrame, drawFrameBackground, drawFrameForeground, TYPE, type AxisSpec, type Frame, type FrameSpec } from './frame.js';

@@ -42,6 +42,11 @@ export interface FrameLayoutInput {
   topReserve?: number;
   /** How far the last x tick label may stick out right of the plot area (half its width). */
   xOverhang: number;
+  /**
+   * Fixed left and right pixel edges of the plot area (surface coordinates), for panels stacked over
+   * one another that must share their x axis pixel for pixel; the measured margins apply otherwise.
+   */
+  columns?: { left: number; right: number };
 }
 
 export interface FrameLayout {
@@ -89,10 +94,12 @@ export function layoutFrame(input: FrameLayoutInput): FrameLayout {
     area.x + area.w - p - (input.rightReserve > 0 ? input.rightReserve + SPACING.sideGap : Math.max(0, input.xOverhang));
   const bottomEdge = area.y + area.h - below;
 
+  const plotLeft = input.columns ? input.columns.left : left;
+  const plotRight = input.columns ? input.columns.right : rightEdge;
   const plot: Rect = {
-    x: Math.round(left),
+    x: Math.round(plotLeft),
     y: Math.round(top),
-    w: Math.max(10, Math.round(rightEdge - left)),
+    w: Math.max(10, Math.round(plotRight - plotLeft)),
     h: Math.max(10, Math.round(bottomEdge - top)),
   };
   const xTickBottom = plot.y + plot.h + SPACING.tick + SPACING.tickLabelGap + input.xTickLabelHeight;

@@ -47,6 +47,27 @@ export interface LinePlotSpec {
   legendTitle?: string;
   /** Grid lines at the ticks (default true). */
   grid?: boolean;
+  /**
+   * Fixed left and right pixel edges of the plot area: stacked panels given the same columns share
+   * their x axis pixel for pixel (see alignedColumns).
+   */
+  columns?: { left: number; right: number };
+}
+
+/**
+ * The plot columns that stacked panels share: the rightmost left edge and the leftmost right edge of
+ * their natural layouts, so every panel's tick labels and legend still fit. Lays the panels out on a
+ * scratch surface of the same size; draws nothing on `surface`.
+ */
+export function alignedColumns(surface: Surface, panels: readonly { area: Rect; spec: LinePlotSpec }[]): { left: number; right: number } {
+  const scratch = new Surface(surface.width, surface.height);
+  let left = -Infinity, right = Infinity;
+  for (const p of panels) {
+    const f = drawLinePlot(scratch, p.area, { ...p.spec, columns: undefined });
+    left = Math.max(left, f.plot.x);
+    right = Math.min(right, f.plot.x + f.plot.w);
+  }
+  return { left, right };
 }
 
 export interface ImageSize {
@@ -130,6 +151,7 @@ export function drawLinePlot(surface: Surface, area: Rect, spec: LinePlotSpec): 
     rightReserve,
     bottomReserve,
     topReserve: estimateMarkerBand(surface, spec.markers, domains.x, area, rightReserve),
+    columns: spec.columns,
   };
   const frame = buildFrame(surface, area, frameSpec);
   const { plot } = frame;

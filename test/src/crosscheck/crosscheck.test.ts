@@ -3,7 +3,8 @@
 // evaluates the exact models; and the causality of the time-domain step response.
 import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
-import { crossCheck, crossCheckSummary, renderCrossCheck, signalSwing } from '../../../src/crosscheck/index.js';
+import { crossCheck, crossCheckSummary, drawCrossCheck, renderCrossCheck, signalSwing } from '../../../src/crosscheck/index.js';
+import { Surface } from '../../../src/render/surface.js';
 import { scenarioFromValue } from '../../../src/scenario/load.js';
 import { highFrequencyLimit } from '../../../sim/lines/freq-model.js';
 import type { Net } from '../../../sim/model.js';
@@ -121,5 +122,17 @@ describe('swing, summary section and plot', () => {
 
     const png = PNG.sync.read(await renderCrossCheck({ title: net.title, timeDomain: td.record, check, width: 800, height: 600 }));
     expect([png.width, png.height]).toEqual([800, 600]);
+  });
+
+  it('the overlay and difference panels share the time axis pixel for pixel', () => {
+    // the two panels' legends ("drv (time domain)" against "drv") and y tick labels ("3", "−0.05")
+    // differ in width: the plot columns are aligned all the same
+    const td = simulate(net);
+    const check = crossCheck(net, td);
+    const s = new Surface(1200, 900);
+    const { upper, lower } = drawCrossCheck(s, { title: net.title, timeDomain: td.record, check });
+    expect([lower.plot.x, lower.plot.w]).toEqual([upper.plot.x, upper.plot.w]);
+    for (const t of [0, 0.7e-9, 1.9e-9, 3e-9]) expect(lower.x.map(t)).toBe(upper.x.map(t));
+    expect(lower.xTicks.values).toEqual(upper.xTicks.values);
   });
 });
