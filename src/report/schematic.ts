@@ -1,7 +1,8 @@
 // The route as a schematic strip, in inline SVG of our own: the driver (a source behind its resistance),
-// each line segment as a long box with its Z0, one-way delay and length, series parts as impedance
-// boxes in the signal path, shunt parts as branches to ground or to their rail, and the receiver's
-// parts (or an open end). Widths follow the longest label, so nothing overlaps.
+// each line segment as a long box with its Z0, one-way delay and length, series parts in the signal
+// path and shunt parts as branches to ground or to their rail, each element with its own symbol
+// (resistor box, inductor coil, capacitor plates), and the receiver's parts (or an open end). Widths
+// follow the longest label, so nothing overlaps.
 import { rlgcAt } from '../../sim/lines/freq-model.js';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { LineRLGC, Net, Part, RouteItem, Signal } from '../../sim/model.js';
@@ -95,7 +96,83 @@ function railEnd(x: number, y: number, rail: number): string {
     .join('');
 }
 
-/** Parallel branches from the signal line down through an impedance box to their rails, centred on cx. */
+// ---------------------------------------------------------------- element symbols
+// A part is R, L and C in series; each is drawn with its own symbol (resistor box, inductor coil,
+// capacitor plates) along the wire, in that order. Each symbol is a <g class="el el-r|el-l|el-c">.
+
+type ElementKind = 'r' | 'l' | 'c';
+
+/** The elements a part has, in the order they are drawn: R, L, C (none: a short, a plain wire). */
+export function partElements(p: Part): ElementKind[] {
+  const out: ElementKind[] = [];
+  if (p.r) out.push('r');
+  if (p.l) out.push('l');
+  if (p.c !== undefined) out.push('c');
+  return out;
+}
+
+/** Length along the wire each symbol takes (px). */
+const SYMBOL_LENGTH: Readonly<Record<ElementKind, number>> = { r: 24, l: 24, c: 8 };
+const SYMBOL_GAP = 6;
+
+/** Length of a part's symbols along its wire, gaps included. */
+function symbolsLength(kinds: readonly ElementKind[]): number {
+  return kinds.reduce((a, k) => a + SYMBOL_LENGTH[k], 0) + SYMBOL_GAP * Math.max(0, kinds.length - 1);
+}
+
+const line = (x1: number, y1: number, x2: number, y2: number) => `<line x1="${x1}" y1="${y1}" x2="${x2}" y2="${y2}" stroke="${STROKE}" stroke-width="2"/>`;
+
+/**
+ * One symbol with its start at `at` along an axis: horizontal (the wire at y = `across`, running from
+ * x = at to at + length) or vertical (the wire at x = `across`, running down from y = at).
+ */
+function symbol(kind: ElementKind, at: number, across: number, vertical: boolean): string {
+  const len = SYMBOL_LENGTH[kind];
+  const P = (along: number, side: number): [number, number] => (vertical ? [across + side, at + along] : [at + along, across + side]);
+  let body = '';
+  if (kind === 'r') {
+    const [x, y] = P(0, -6);
+    body = vertical
+      ? `<rect x="${across - 6}" y="${at}" width="12" height="${len}" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>`
+      : `<rect x="${x}" y="${y}" width="${len}" height="12" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>`;
+  } else if (kind === 'c') {
+    // two plates across the wire, a gap between them
+    const [a1, a2] = [P(0, -9), P(0, 9)];
+    const [b1, b2] = [P(len, -9), P(len, 9)];
+    body = line(a1[0], a1[1], a2[0], a2[1]) + line(b1[0], b1[1], b2[0], b2[1]);
+  } else {
+    // four half-turns of a coil on one side of the wire
+    const turns = 4;
+    const step = len / turns;
+    const [x0, y0] = P(0, 0);
+    const arcs = Array.from({ length: turns }, () => (vertical ? `a ${step / 2} ${step / 2} 0 0 1 0 ${step}` : `a ${step / 2} ${step / 2} 0 0 1 ${step} 0`)).join(' ');
+    body = `<path d="M ${x0} ${y0} ${arcs}" fill="none" stroke="${STROKE}" stroke-width="2"/>`;
+  }
+  return `<g class="el el-${kind}">${body}</g>`;
+}
+
+/**
+ * A part's symbols along a wire from `from` to `to` (horizontal at y = `across`, or vertical at
+ * x = `across`), centred, joined by wire; a part without elements is a plain wire (a short).
+ */
+function partAlong(p: Part, from: number, to: number, across: number, vertical: boolean): string {
+  const kinds = partElements(p);
+  const wireAlong = (a: number, b: number) => (b > a ? (vertical ? line(across, a, across, b) : line(a, across, b, across)) : '');
+  if (kinds.length === 0) return wireAlong(from, to);
+  let at = (from + to) / 2 - symbolsLength(kinds) / 2;
+  let svg = wireAlong(from, at);
+  kinds.forEach((k, i) => {
+    if (i > 0) {
+      svg += wireAlong(at, at + SYMBOL_GAP);
+      at += SYMBOL_GAP;
+    }
+    svg += symbol(k, at, across, vertical);
+    at += SYMBOL_LENGTH[k];
+  });
+  return svg + wireAlong(at, to);
+}
+
+/** Parallel branches from the signal line down through each part's symbols to its rail, centred on cx. */
 function branches(cx: number, parts: Part[]): { svg: string; width: number } {
   const n = Math.max(1, parts.length);
   const pitch = 30;
@@ -103,8 +180,7 @@ function branches(cx: number, parts: Part[]): { svg: string; width: number } {
   let svg = '';
   parts.forEach((p, i) => {
     const x = x0 + i * pitch;
-    svg += `<line x1="${x}" y1="${Y}" x2="${x}" y2="${Y + 70}" stroke="${STROKE}" stroke-width="2"/>`;
-    svg += `<rect x="${x - 7}" y="${Y + 22}" width="14" height="28" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>`;
+    svg += partAlong(p, Y, Y + 70, x, true);
     svg += railEnd(x, Y + 70, p.rail);
   });
   if (parts.length > 1) svg += `<line x1="${x0}" y1="${Y}" x2="${x0 + (n - 1) * pitch}" y2="${Y}" stroke="${STROKE}" stroke-width="2"/>`;
@@ -145,13 +221,8 @@ function lineBlock(item: Extract<RouteItem, { kind: 'line' }>): Block {
 
 function seriesBlock(item: Extract<RouteItem, { kind: 'series' }>): Block {
   const detail = describePart(item.part, false);
-  const w = widthFor([item.name, detail], 80);
-  const svg =
-    wire(0, w / 2 - 20) +
-    `<rect x="${w / 2 - 20}" y="${Y - 8}" width="40" height="16" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` +
-    wire(w / 2 + 20, w) +
-    text(w / 2, Y - 16, item.name, { bold: true }) +
-    labels(w / 2, Y + 28, ['series', detail]);
+  const w = Math.max(widthFor([item.name, detail], 80), symbolsLength(partElements(item.part)) + 24);
+  const svg = partAlong(item.part, 0, w, Y, false) + text(w / 2, Y - 16, item.name, { bold: true }) + labels(w / 2, Y + 28, ['series', detail]);
   return { width: w, svg };
 }
 

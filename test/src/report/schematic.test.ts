@@ -63,4 +63,22 @@ describe('routeSvg', () => {
     expect(strip).not.toContain(`R′ ${formatSI(b.line.rdc, 'Ω/m', 3)}`);
     expect(strip).toContain(`Z0 ${formatSI(b.z0, 'Ω', 4)} at 1 GHz`);
   });
+
+  it('draws each element with its own symbol: resistor box, inductor coil, capacitor plates', () => {
+    const count = (svg: string, kind: string) => (svg.match(new RegExp(`class="el el-${kind}"`, 'g')) ?? []).length;
+    const only = (route: Parameters<typeof net>[0]['route'], receiver = [part({ r: 1e6 })]) =>
+      routeSvg(net({ signal: stepSignal(1, 1e-10), rs: 20, route: [{ kind: 'line', name: 't', line: lineOf(50, 5e-9), length: 0.1 }, ...route], receiver }));
+    // a series R + L + C part: one of each, in that order along the wire
+    const rlc = only([{ kind: 'series', name: 'x', part: part({ r: 1, l: 5e-9, c: 1e-9 }) }], []);
+    expect([count(rlc, 'r'), count(rlc, 'l'), count(rlc, 'c')]).toEqual([1, 1, 1]);
+    expect(rlc.indexOf('el-r')).toBeLessThan(rlc.indexOf('el-l'));
+    expect(rlc.indexOf('el-l')).toBeLessThan(rlc.indexOf('el-c'));
+    // the coil is drawn with arcs, the plates with two lines, the resistor with a box
+    expect(/<g class="el el-l"><path d="M [^"]* a /.test(rlc)).toBe(true);
+    expect(/<g class="el el-c">(<line [^>]*\/>){2}<\/g>/.test(rlc)).toBe(true);
+    expect(/<g class="el el-r"><rect /.test(rlc)).toBe(true);
+    // a shunt capacitor alone: plates, no box; a receiver of C ‖ (R + L)
+    const shunt = only([{ kind: 'shunt', name: 'via', parts: [part({ c: 1e-12 })] }], [part({ c: 3e-12 }), part({ r: 1e4, l: 5e-9 })]);
+    expect([count(shunt, 'r'), count(shunt, 'l'), count(shunt, 'c')]).toEqual([1, 1, 2]);
+  });
 });
