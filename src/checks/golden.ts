@@ -144,6 +144,8 @@ export interface GoldenCheck {
   message: string;
   /** The best shift (s), when compared. */
   shift: number | null;
+  /** Run time (s) of the largest difference, when compared. */
+  time: number | null;
 }
 
 export function describeGoldenLimit(o: CompareOptions): string {
@@ -169,7 +171,7 @@ export function compareWithGolden(
   const dtg = (gEnd - gStart) / Math.max(1, golden.times.length - 1);
   const spanOk = Math.abs(gEnd - runEnd) <= Math.max(run.dt, dtg) * 1.0001 && Math.abs(gStart) <= Math.max(run.dt, dtg) * 1.0001;
   return run.names.map((probe, p) => {
-    const base = { probe, limit, shift: null } as const;
+    const base = { probe, limit, shift: null, time: null } as const;
     const gi = golden.names.indexOf(probe);
     if (gi < 0) {
       return { ...base, pass: false, measured: null, measuredText: 'n/a', message: `probe "${probe}" is not in the golden file (it has ${golden.names.join(', ')}); ${fixHint}` };
@@ -192,6 +194,7 @@ export function compareWithGolden(
       measured: d.maxDiff,
       measuredText: formatSI(d.maxDiff, 'V'),
       shift: d.shift,
+      time: d.time,
       message: pass ? `within ±${formatSI(opts.tolerance, 'V')}: ${at}` : `outside ±${formatSI(opts.tolerance, 'V')}: ${at}; if the change is intended, ${fixHint}`,
     };
   });

@@ -1,6 +1,7 @@
 // `ladderwave check` as a library: run every scenario, measure its probes, evaluate its checks and
 // optionally compare with (or update) golden waveforms. One report per scenario, in argument order.
 import { mkdir } from 'node:fs/promises';
+import { join } from 'node:path';
 import { simulate } from '../../sim/simulate.js';
 import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
@@ -8,7 +9,8 @@ import { writeCsv } from '../output/csv.js';
 import { probeTraces } from '../../sim/result.js';
 import { readScenarioFile } from '../output/run.js';
 import { netChecks } from '../scenario/checks.js';
-import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions } from './golden.js';
+import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions, type GoldenCheck, type GoldenRecord } from './golden.js';
+import type { GoldenFailure } from './golden-plot.js';
 import { measureNet } from '../output/measure-net.js';
 
 export type Verdict = 'pass' | 'fail' | 'error';
@@ -48,6 +50,11 @@ export interface GoldenOptions extends CompareOptions {
   dir: string;
   /** Rewrite the golden files from this run instead of comparing. */
   update: boolean;
+  /**
+   * Folder for the picture of a failed comparison, `<plots>/<scenario name>.png` (golden against this
+   * run, the difference and its largest point); none is written when absent.
+   */
+  plots?: string;
 }
 
 export interface CheckRunOptions {
@@ -131,10 +138,14 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
             message: `no golden file ${path}; ${hint}`,
           });
         } else if (golden) {
-          const cmp = compareWithGolden({ names: result.record.names, dt: result.record.dtSample, rows: probeTraces(result.record) }, golden, g, hint);
+          const rows = probeTraces(result.record);
+          const cmp = compareWithGolden({ names: result.record.names, dt: result.record.dtSample, rows }, golden, g, hint);
+          const plot = g.plots ? await writeGoldenPlot(g.plots, file, net.title, result.record.dtSample, rows, result.record.names, golden, cmp, g.tolerance) : null;
           for (const c of cmp) {
-            report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: c.measuredText, pass: c.pass, message: c.message });
+            const where = plot && !c.pass && c.measured !== null ? `; picture: ${plot}` : '';
+            report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: c.measuredText, pass: c.pass, message: c.message + where });
           }
+          if (plot) report.notes.push(`golden comparison failed: golden against this run in ${plot}`);
         }
       }
     }
@@ -146,6 +157,37 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
   }
   report.seconds = (performance.now() - t0) / 1000;
   return report;
+}
+
+/**
+ * Writes `<dir>/<scenario name>.png` for the probes that failed their golden comparison (those that were
+ * compared); returns its path, or null when no compared probe failed.
+ */
+async function writeGoldenPlot(
+  dir: string,
+  file: string,
+  title: string,
+  dt: number,
+  rows: readonly ArrayLike<number>[],
+  names: readonly string[],
+  golden: GoldenRecord,
+  cmp: readonly GoldenCheck[],
+  tolerance: number,
+): Promise<string | null> {
+  const failures: GoldenFailure[] = [];
+  for (const c of cmp) {
+    if (c.pass || c.measured === null || c.shift === null || c.time === null) continue;
+    const p = names.indexOf(c.probe);
+    const gi = golden.names.indexOf(c.probe);
+    failures.push({ probe: c.probe, values: rows[p]!, golden: golden.columns[gi]!, shift: c.shift, maxDiff: c.measured, time: c.time });
+  }
+  if (failures.length === 0) return null;
+  const { renderGoldenOverlay } = await import('./golden-plot.js');
+  const png = renderGoldenOverlay({ title, dt, goldenTimes: golden.times, failures, tolerance });
+  await mkdir(dir, { recursive: true });
+  const path = join(dir, `${scenarioBaseName(file)}.png`);
+  await writeFileAtomic(path, png);
+  return path;
 }
 
 export function totalsOf(scenarios: readonly ScenarioReport[]): CheckTotals {

@@ -2,7 +2,7 @@
 // Thin: the work is in src/checks (runChecks and the report writers).
 import type { Command } from 'commander';
 import { mkdir } from 'node:fs/promises';
-import { dirname } from 'node:path';
+import { dirname, join } from 'node:path';
 import { expandScenarioArgs, formatCheckTable, goldenNameClashes, runChecks, toJUnitXml, toJsonReport, toMarkdown } from '../../checks/index.js';
 import { writeFileAtomic } from '../../output/atomic.js';
 import { parseQuantity } from '../../units.js';
@@ -17,6 +17,7 @@ export interface CheckCommandOptions {
   updateGolden?: boolean;
   goldenTolerance: string;
   goldenShift: string;
+  goldenPlots: string;
   quiet?: boolean;
   force?: boolean;
 }
@@ -38,7 +39,7 @@ export async function checkCommand(args: string[], opts: CheckCommandOptions, ct
   }
   const report = await runChecks(files, {
     force: opts.force,
-    golden: opts.golden && tol.ok && shift.ok ? { dir: opts.golden, update: !!opts.updateGolden, tolerance: tol.value, shift: shift.value } : undefined,
+    golden: opts.golden && tol.ok && shift.ok ? { dir: opts.golden, update: !!opts.updateGolden, tolerance: tol.value, shift: shift.value, plots: opts.goldenPlots } : undefined,
   });
   if (!opts.quiet) io.out(formatCheckTable(report));
   else for (const s of report.scenarios) if (s.error) io.err(s.error.lines.map((l) => l + '\n').join(''));
@@ -75,6 +76,8 @@ export function registerCheckCommand(program: Command, ctx: CliContext): void {
         'Golden waveforms: --golden DIR compares every probe with',
         'DIR/<scenario name>.csv within --golden-tolerance volts, allowing a time',
         'shift up to --golden-shift; --update-golden rewrites them on purpose.',
+        'A failed comparison draws golden against new, the largest difference',
+        'marked, in --golden-plots DIR (default out/golden-diff).',
         '',
         'Exit codes: 0 every check passed, 1 a check failed, 2 bad input or usage,',
         '3 refused (over a size limit).',
@@ -88,6 +91,7 @@ export function registerCheckCommand(program: Command, ctx: CliContext): void {
     .option('--update-golden', 'rewrite the golden files from this run (on purpose: review the diff)')
     .option('--golden-tolerance <volts>', 'tolerance band of the golden comparison', '10mV')
     .option('--golden-shift <time>', 'largest time shift allowed in the golden comparison', '20ps')
+    .option('--golden-plots <dir>', 'where a failed golden comparison draws golden against new, with the largest difference marked: DIR/<scenario name>.png', join('out', 'golden-diff'))
     .option('-q, --quiet', 'print nothing except errors (the exit code tells the verdict)')
     .option('-f, --force', 'run even if a run would exceed a size limit')
     .action(async (args: string[], opts: CheckCommandOptions) => {

@@ -1,6 +1,8 @@
 // Golden comparison: the tolerance band and the time shift, against closed forms.
 import { describe, expect, it } from 'vitest';
 import { compareWaveform, compareWithGolden, parseGoldenCsv, shiftGrid } from '../../../src/checks/golden.js';
+import { drawGoldenOverlay, goldenDifference } from '../../../src/checks/golden-plot.js';
+import { Surface } from '../../../src/render/surface.js';
 
 const dt = 1e-11; // 10 ps
 const n = 1001; // 0 … 10 ns
@@ -83,5 +85,30 @@ describe('parseGoldenCsv', () => {
     ['time_s,tx\n1,0\n0,0\n', /:3: times must increase/],
   ])('refuses %j', (text, msg) => {
     expect(() => parseGoldenCsv(text, 'g.csv')).toThrow(msg);
+  });
+});
+
+describe('the picture of a failed comparison', () => {
+  it('marks the largest difference where it happened, with the tolerance band, both panels on one time axis', () => {
+    // golden: a ramp; this run: the same ramp with a 30 mV bump at 6 ns (no shift helps): E = 30 mV at 6 ns
+    const golden = ramp(2e-9, 1e-9);
+    const run = Float64Array.from(golden, (v, i) => v + (Math.abs(i * dt - 6e-9) < 1e-12 ? 0.03 : 0));
+    const d = compareWaveform(run, dt, { times: times(), values: golden }, { tolerance: 0.01, shift: 0 });
+    expect(d.maxDiff).toBeCloseTo(0.03, 12);
+    expect(d.time).toBeCloseTo(6e-9, 15);
+    const s = new Surface(1200, 800);
+    const drawn = drawGoldenOverlay(s, {
+      title: 't',
+      dt,
+      goldenTimes: times(),
+      failures: [{ probe: 'rx', values: run, golden, shift: d.shift, maxDiff: d.maxDiff, time: d.time }],
+      tolerance: 0.01,
+    });
+    expect(drawn.markers).toEqual([expect.objectContaining({ axis: 'x', at: 6e-9, label: 'largest: 30 mV at 6 ns (rx)' })]);
+    for (const t of [0, 3e-9, 6e-9, 10e-9]) expect(drawn.lower.x.map(t)).toBe(drawn.upper.x.map(t));
+    // the difference v(t) − g(t − s) is the bump alone
+    const diff = goldenDifference(run, dt, times(), golden, 0);
+    expect(diff[600]).toBeCloseTo(0.03, 12);
+    expect(diff[300]).toBe(0);
   });
 });

@@ -1,5 +1,6 @@
 // The check runner on the demo folder, golden files end to end, exit codes, scenario files by glob,
 // and the measurement sections of summary.json.
+import { PNG } from 'pngjs';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -76,11 +77,16 @@ describe('golden waveforms', () => {
       return [t, tx, t > 1e-9 ? rx + 0.02 : rx].join(',');
     });
     writeFileSync(join(golden, 'small.csv'), edited.join('\n') + '\n');
-    const changed = await runChecks([file], { golden: { ...g, update: false } });
+    const plots = join(dir, 'diff');
+    const changed = await runChecks([file], { golden: { ...g, update: false, plots } });
     expect(changed.exitCode).toBe(1);
     const rx = changed.scenarios[0]!.rows.find((r) => r.kind === 'golden' && r.probe === 'rx')!;
     expect(rx.measured).toBeCloseTo(0.02, 9);
     expect(rx.message).toMatch(/outside ±10 mV: largest difference 20 mV/);
+    // the failure draws golden against this run in <plots>/<scenario>.png, named in the message
+    expect(rx.message).toContain(`picture: ${join(plots, 'small.png')}`);
+    expect(PNG.sync.read(readFileSync(join(plots, 'small.png'))).width).toBe(1200);
+    expect(changed.scenarios[0]!.rows.find((r) => r.kind === 'golden' && r.probe === 'tx')!.message).not.toContain('picture');
   });
 
   it('a scenario that cannot be loaded makes the exit code 2, even next to a failed check', async () => {
