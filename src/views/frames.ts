@@ -1,6 +1,8 @@
 // Animation frames: voltage against distance along the route at evenly spaced instants, one PNG each,
-// read from the route map (SimResult.routeMap). Every frame shares one y scale, so the frames can be
-// played in order; segment boundaries and lumped parts are marked and labelled; the time is in the title.
+// read from the route map (SimResult.routeMap). The instants cover the interval where the route is
+// active — from just before anything moves to where every point has settled to its final value — not a
+// settled tail. Every frame shares one y scale, so the frames can be played in order; segment
+// boundaries and lumped parts are marked and labelled; the time is in the title.
 import type { RouteMapRecord } from '../../sim/result.js';
 import { drawLinePlot, encodePng, formatSi, padDomain, Surface, THEME, type Annotation, type Marker } from '../render/index.js';
 import { pathMap } from './map.js';
@@ -26,15 +28,46 @@ export function frameFileName(i: number, count: number): string {
 /** Matches a frame file name (for removing frames left over from an earlier run with more frames). */
 export const FRAME_FILE_PATTERN = /^frame-(\d{4,})\.png$/;
 
+/** Share of the map's whole voltage range within which a point counts as unchanged (0.5 %). */
+export const ACTIVITY_TOLERANCE = 0.005;
+
 /**
- * Route-map rows shown by `count` frames: evenly spaced from the first row to the last (rounded to the
- * nearest row), so the first frame is t = 0 and the last the end of the run.
+ * The rows where the route is active: from the last row before any point leaves its starting value to
+ * the first row after which every point stays at its final value, each within `tolerance` of the map's
+ * whole voltage range. A route that never settles (a clock) is active to the end; a map that never
+ * changes is "active" over all of it.
  */
-export function frameRows(rows: number, count: number): number[] {
+export function activeRows(map: RouteMapRecord, tolerance = ACTIVITY_TOLERANCE): [number, number] {
+  const rows = map.values.shape[0], cols = map.values.shape[1];
+  const d = map.values.data;
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < d.length; i++) {
+    if (d[i] < lo) lo = d[i];
+    if (d[i] > hi) hi = d[i];
+  }
+  const eps = tolerance * (hi - lo);
+  if (!(eps > 0) || rows < 2) return [0, Math.max(0, rows - 1)];
+  const differs = (r: number, ref: number) => {
+    for (let j = 0; j < cols; j++) if (Math.abs(d[r * cols + j] - d[ref * cols + j]) > eps) return true;
+    return false;
+  };
+  let first = 0;
+  while (first < rows - 1 && !differs(first, 0)) first++;
+  let last = rows - 1;
+  while (last > 0 && !differs(last, rows - 1)) last--;
+  return [Math.max(0, first - 1), Math.min(rows - 1, last + 1)];
+}
+
+/**
+ * Route-map rows shown by `count` frames: evenly spaced (rounded to the nearest row) from `range[0]` to
+ * `range[1]` (default: the first row to the last). One frame shows the end of the range.
+ */
+export function frameRows(rows: number, count: number, range: readonly [number, number] = [0, rows - 1]): number[] {
   if (!(Number.isInteger(rows) && rows >= 1)) throw new RangeError(`frameRows: rows must be a positive whole number, got ${rows}`);
   if (!(Number.isInteger(count) && count >= 1)) throw new RangeError(`frameRows: count must be a positive whole number, got ${count}`);
-  if (count === 1) return [rows - 1];
-  return Array.from({ length: count }, (_, i) => Math.round((i * (rows - 1)) / (count - 1)));
+  const a = Math.max(0, Math.min(rows - 1, range[0])), b = Math.max(a, Math.min(rows - 1, range[1]));
+  if (count === 1) return [b];
+  return Array.from({ length: count }, (_, i) => a + Math.round((i * (b - a)) / (count - 1)));
 }
 
 /** The fixed voltage axis of all frames: the whole map's range, padded, with headroom for the labels. */
@@ -83,8 +116,8 @@ export function routeMarks(
   return { markers, annotations };
 }
 
-/** The PNG of one frame: route-map row `row`. */
-function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [number, number]): Buffer {
+/** The PNG of one frame: route-map row `row` along the main path; `active` is the interval the frames cover (s). */
+function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [number, number], active: [number, number]): Buffer {
   const map = pathMap(spec.routeMap);
   const cols = map.positions.length;
   const values = map.values.data.subarray(row * cols, (row + 1) * cols);
@@ -100,7 +133,7 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   drawLinePlot(surface, { x: 0, y: 0, w: surface.width, h: surface.height }, {
     // the time leads, so a long scenario title is what gets shortened
     title: `t = ${formatSi(row * map.dtRow, 's')} · ${spec.title}`,
-    subtitle: `Voltage along the ${spec.routeMap.paths.length > 1 ? `main path (to ${spec.routeMap.paths[0].receiver})` : 'route'}, driver at 0 m · frame ${index + 1} of ${spec.count}`,
+    subtitle: `Voltage along the ${spec.routeMap.paths.length > 1 ? `main path (to ${spec.routeMap.paths[0].receiver})` : 'route'}, driver at 0 m · frame ${index + 1} of ${spec.count}, over ${formatSi(active[0], 's')} … ${formatSi(active[1], 's')} where the route is active`,
     x: { label: 'Distance from the driver', unit: 'm', domain: end > 0 ? [0, end] : [0, 1] },
     y: { label: 'Voltage', unit: 'V', domain: yDomain },
     series: [{ name: 'voltage', values, xs: map.positions, style: { width: 2 } }],
@@ -111,9 +144,11 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   return encodePng(surface);
 }
 
-/** `count` frames as PNG bytes, in time order. */
+/** `count` frames as PNG bytes, in time order, over the interval where the route is active (activeRows). */
 export async function renderFrames(spec: FramesSpec): Promise<Buffer[]> {
-  const rows = frameRows(spec.routeMap.values.shape[0], spec.count);
+  const range = activeRows(spec.routeMap);
+  const rows = frameRows(spec.routeMap.values.shape[0], spec.count, range);
   const yDomain = frameVoltageDomain(spec.routeMap);
-  return rows.map((row, i) => drawFrame(spec, row, i, yDomain));
+  const span: [number, number] = [range[0] * spec.routeMap.dtRow, range[1] * spec.routeMap.dtRow];
+  return rows.map((row, i) => drawFrame(spec, row, i, yDomain, span));
 }

@@ -4,7 +4,7 @@ import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
 import type { RouteMapRecord } from '../../../sim/result.js';
 import { simulate } from '../../../sim/simulate.js';
-import { FRAME_FILE_PATTERN, frameFileName, frameRows, frameVoltageDomain, renderFrames, routeMarks } from '../../../src/views/frames.js';
+import { activeRows, FRAME_FILE_PATTERN, frameFileName, frameRows, frameVoltageDomain, renderFrames, routeMarks } from '../../../src/views/frames.js';
 import { lineOf, net, part, stepSignal } from '../../support/nets.js';
 
 describe('frame instants', () => {
@@ -68,9 +68,41 @@ describe('frames of a matched line', () => {
     for (const p of pngs) expect([PNG.sync.read(p).width, PNG.sync.read(p).height]).toEqual([640, 360]);
   });
 
+  it('cover the interval where the route is active, not the settled tail', () => {
+    // The 0.5 V wave leaves the driver with the ramp (0.5 ns to 0.75 ns) and is absorbed by the matched
+    // load at TD = 5 ns later (Pozar §2.3–2.4: Γ = 0, nothing comes back): after about 5.75 ns every point
+    // sits at 0.5 V, so the last 4 ns of the 10 ns run show nothing new.
+    const [a, b] = activeRows(map);
+    expect(a * map.dtRow).toBeLessThanOrEqual(0.5e-9);
+    expect(a * map.dtRow).toBeGreaterThan(0.3e-9);
+    expect(b * map.dtRow).toBeGreaterThan(5.5e-9);
+    expect(b * map.dtRow).toBeLessThan(6.2e-9);
+    const rows = frameRows(map.values.shape[0], 5, [a, b]);
+    expect(rows[0]).toBe(a);
+    expect(rows[4]).toBe(b);
+  });
+
   it('refuses a frame count below 1', () => {
     expect(() => frameRows(map.values.shape[0], 0)).toThrow(RangeError);
     expect(() => frameRows(0, 3)).toThrow(RangeError);
+  });
+});
+
+describe('activeRows on hand-made maps', () => {
+  const mapOf = (rows: number[][]): RouteMapRecord => ({
+    positions: Float64Array.from(rows[0].map((_, j) => j)),
+    dtRow: 1,
+    values: ndarray(Float64Array.from(rows.flat()), [rows.length, rows[0].length]),
+    items: [],
+  });
+  it('a route that never settles (a clock) is active to the end', () => {
+    expect(activeRows(mapOf([[0, 0], [0, 0], [1, 0], [1, 1], [0, 1], [0, 0], [1, 0]]))).toEqual([1, 6]);
+  });
+  it('a route that settles is active from the row before it moves to the first row that stays settled', () => {
+    expect(activeRows(mapOf([[0, 0], [0, 0], [0, 0], [1, 0], [1, 1], [1, 1], [1, 1], [1, 1]]))).toEqual([2, 4]);
+  });
+  it('a map that never changes is shown whole', () => {
+    expect(activeRows(mapOf([[2, 2], [2, 2], [2, 2]]))).toEqual([0, 2]);
   });
 });
 
