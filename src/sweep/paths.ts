@@ -13,6 +13,8 @@
 // Setting a value copies the scenario (the original is never changed) and creates a missing last
 // key, so a default can be swept too; the validator then checks the result like any scenario.
 
+import { editDistance } from '../scenario/problems.js';
+
 export type PathStep = { kind: 'key'; key: string } | { kind: 'index'; index: number };
 
 export class PathError extends Error {
@@ -103,13 +105,37 @@ function describe(v: unknown): string {
   return Array.isArray(v) ? 'a list' : isObject(v) ? 'an object' : v === undefined ? 'nothing' : JSON.stringify(v);
 }
 
-/** Position of a route item by name; throws PathError listing the names here, and where the name is if elsewhere. */
-function routeIndex(route: unknown[], name: string, where: string, root: unknown, concrete: string): number {
+/**
+ * Up to `n` whole paths like `steps` with step `at` replaced by the nearest of `candidates` (by edit
+ * distance, ties in the given order), for "nearest valid paths" in messages.
+ */
+export function nearestPaths(steps: readonly PathStep[], at: number, candidates: readonly string[], n = 3): string[] {
+  const word = steps[at]?.kind === 'key' ? (steps[at] as { key: string }).key.toLowerCase() : '';
+  return candidates
+    .map((c, order) => ({ c, d: editDistance(word, c.toLowerCase()), order }))
+    .sort((a, b) => a.d - b.d || a.order - b.order)
+    .slice(0, n)
+    .map(({ c }) => formatPath(steps.map((st, k) => (k === at ? { kind: 'key' as const, key: c } : st))));
+}
+
+function nearestText(paths: readonly string[]): string {
+  return paths.length ? ` — nearest valid path${paths.length > 1 ? 's' : ''}: ${paths.join(', ')}` : '';
+}
+
+/**
+ * Position of a route item by name; throws PathError listing the names here, where the name is if it
+ * sits elsewhere in the route tree, or else the nearest valid paths.
+ */
+function routeIndex(route: unknown[], name: string, where: string, root: unknown, concrete: string, steps: readonly PathStep[], at: number): number {
   const i = route.findIndex((it) => isObject(it) && it.name === name);
   if (i >= 0) return i;
   const names = route.map((it, k) => (isObject(it) && typeof it.name === 'string' ? it.name : `[${k}]`));
   const elsewhere = findItemPath(isObject(root) ? root.route : undefined, name, 'route');
-  const hint = elsewhere ? ` — "${name}" is at ${elsewhere}` : '';
+  // otherwise candidates that lead on: items with the next key of the path ("series" for route.x.series.r)
+  const next = steps[at + 1];
+  const leads = (it: unknown) => next === undefined || (next.kind === 'key' && isObject(it) && Object.prototype.hasOwnProperty.call(it, next.key));
+  const named = route.filter((it) => isObject(it) && typeof it.name === 'string' && leads(it)).map((it) => (it as { name: string }).name);
+  const hint = elsewhere ? ` — "${name}" is at ${elsewhere}` : nearestText(nearestPaths(steps, at, named));
   const list = concrete === 'route' ? '' : ` in ${concrete}`;
   throw new PathError(`${where}: no route item named "${name}"${list} (route items: ${names.join(', ') || 'none'})${hint}`);
 }
@@ -161,13 +187,13 @@ function resolve(root: unknown, steps: readonly PathStep[], text: string): Resol
       key = st.index;
       concrete += `[${st.index}]`;
     } else if (Array.isArray(cur) && isRouteList(concrete)) {
-      key = routeIndex(cur, st.key, text, root, concrete);
+      key = routeIndex(cur, st.key, text, root, concrete, steps, k);
       concrete += `[${key}]`;
     } else {
       if (!isObject(cur)) throw new PathError(`${where}: "${st.key}" is a key of an object, but here is ${describe(cur)}`);
       if (!last && !Object.prototype.hasOwnProperty.call(cur, st.key)) {
         const keys = Object.keys(cur);
-        throw new PathError(`${where}: no key "${st.key}"${keys.length ? ` (keys here: ${keys.join(', ')})` : ''}`);
+        throw new PathError(`${where}: no key "${st.key}"${keys.length ? ` (keys here: ${keys.join(', ')})` : ''}${nearestText(nearestPaths(steps, k, keys))}`);
       }
       key = st.key;
       concrete += concrete === '' ? st.key : `.${st.key}`;

@@ -11,7 +11,7 @@ import { checkBands, columnName, metricColumns, WORSE, type MetricColumn, type W
 import { checkScenarioValue, readScenario } from '../scenario/load.js';
 import { parseText, toPlain } from '../scenario/parse.js';
 import { Problems, ScenarioError, type Problem } from '../scenario/problems.js';
-import { concretePath, PathError, withValues } from './paths.js';
+import { concretePath, nearestPaths, parsePath, PathError, withValues } from './paths.js';
 import { parsePickSyntax, pickBands, resolvePick } from './pick.js';
 import { netChecks, netThresholds } from '../scenario/checks.js';
 import { Xoshiro128ss } from './prng.js';
@@ -247,6 +247,7 @@ export function pointNet(plan: SweepPlan, i: number): Net {
  * fail (each problem names its point), or [] when every point is a valid scenario.
  */
 export function pointProblems(plan: SweepPlan, indices: readonly number[], maxPoints = 3): Problem[] {
+  unknownVariedKeys(plan);
   const out: Problem[] = [];
   let bad = 0;
   for (const i of indices) {
@@ -259,6 +260,38 @@ export function pointProblems(plan: SweepPlan, indices: readonly number[], maxPo
     }
   }
   return out;
+}
+
+/**
+ * A varied path whose last key the scenario format does not know (`route.rs.series.rr`) fails at every
+ * point alike: say so once, as a usage error, with the nearest valid paths, instead of once per point.
+ */
+function unknownVariedKeys(plan: SweepPlan): void {
+  let problems: Problem[];
+  try {
+    pointNet(plan, 0);
+    return;
+  } catch (e) {
+    if (!(e instanceof ScenarioError)) return;
+    problems = e.problems;
+  }
+  const paths = [...plan.axes.map((a) => ({ path: a.path, flag: '--vary' })), ...plan.spreads.map((s) => ({ path: s.path, flag: '--spread' }))];
+  const messages: string[] = [];
+  for (const { path, flag } of paths) {
+    const concrete = concretePath(plan.scenarioValue, path);
+    const p = problems.find((q) => q.path === concrete && q.expected.startsWith('a known key'));
+    if (!p) continue;
+    const keys = /keys here: ([^)]*)\)/.exec(p.expected)?.[1]?.split(',').map((k) => k.trim()).filter(Boolean) ?? [];
+    const steps = parsePath(path);
+    const nearest = nearestPaths(steps, steps.length - 1, keys);
+    const last = steps[steps.length - 1]!;
+    const name = last.kind === 'key' ? last.key : `[${last.index}]`;
+    messages.push(
+      `${flag} ${path}: the scenario format has no key "${name}" at ${concrete.slice(0, concrete.length - name.length - 1) || 'the top'}` +
+        `${keys.length ? ` (keys there: ${keys.join(', ')})` : ''}${nearest.length ? ` — nearest valid path${nearest.length > 1 ? 's' : ''}: ${nearest.join(', ')}` : ''}`,
+    );
+  }
+  if (messages.length) throw new SweepSpecError(messages.join('\n'));
 }
 
 export { parseShard };

@@ -42,6 +42,16 @@ describe('ladderwave sweep', () => {
     expect(io.stderr).toBe('');
   });
 
+  it('a varied key the scenario format does not know is reported once, with the nearest valid paths (exit 2)', async () => {
+    const d = dir();
+    const f = writeScenario(d, 'net.json', NET);
+    const io = collect();
+    expect(await runCli(['sweep', f, '--vary', 'route.rs.series.rr=1ohm..5ohm:5', '--out', join(d, 'o'), '-q'], { io })).toBe(2);
+    expect(io.stderr).toBe(
+      'ladderwave sweep: --vary route.rs.series.rr: the scenario format has no key "rr" at route[0].series (keys there: r, l, c, to) — nearest valid paths: route.rs.series.r, route.rs.series.l, route.rs.series.c\n',
+    );
+  });
+
   it.each([
     [['--vary', 'route.nope.series.r=1ohm,2ohm'], /no route item named "nope" \(route items: rs, trace\)/],
     [['--vary', 'route.rs.series.r=0ohm..60ohm'], /a range is A\.\.B:N/],

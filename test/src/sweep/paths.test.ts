@@ -30,6 +30,9 @@ describe('paths', () => {
   it.each([
     ['route.r9.series.r', /no route item named "r9" \(route items: rs, trace\)/],
     ['lines.nope.z0', /no key "nope" \(keys here: trace\)/],
+    // the nearest valid paths, by edit distance, among the items and keys that lead on
+    ['route.rss.series.r', /— nearest valid path: route\.rs\.series\.r$/],
+    ['lines.trac.z0', /— nearest valid path: lines\.trace\.z0$/],
     ['route[5].length', /index \[5\] is past the end of a list of 2/],
     ['driver.resistance[0]', /indexes a list/],
   ])('%s: explains what is missing', (path, msg) => {

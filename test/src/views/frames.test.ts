@@ -94,6 +94,7 @@ describe('activeRows on hand-made maps', () => {
     dtRow: 1,
     values: ndarray(Float64Array.from(rows.flat()), [rows.length, rows[0].length]),
     items: [],
+    paths: [],
   });
   it('a route that never settles (a clock) is active to the end', () => {
     expect(activeRows(mapOf([[0, 0], [0, 0], [1, 0], [1, 1], [0, 1], [0, 0], [1, 0]]))).toEqual([1, 6]);
