@@ -69,8 +69,10 @@ function attrs(a: Record<string, string | number>): string {
     .join('');
 }
 
+/** "sd_clk overshoot max 10 %"; a limit that only repeats the metric ("monotonic") is left out. */
 function caseName(r: CheckRow): string {
-  return r.kind === 'golden' ? `${r.probe} golden (${r.limit})` : `${r.probe} ${r.metric} ${r.limit}`;
+  if (r.kind === 'golden') return `${r.probe} golden (${r.limit})`;
+  return r.limit === r.metric || r.limit === '' ? `${r.probe} ${r.metric}` : `${r.probe} ${r.metric} ${r.limit}`;
 }
 
 /**

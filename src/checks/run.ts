@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { simulate } from '../../sim/simulate.js';
 import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
+import { formatSI } from '../units.js';
 import { writeCsv } from '../output/csv.js';
 import { probeTraces } from '../../sim/result.js';
 import { readScenarioFile } from '../output/run.js';
@@ -95,6 +96,22 @@ export function goldenNameClashes(files: readonly string[]): string[] {
   return out;
 }
 
+/**
+ * Below these, a measured value is shown as 0 in the results tables: 0.01 % of the swing, 1 µV, 1 fs —
+ * far under what a simulation's numbers mean (floating-point dust like "1.332e-14 %" or "0.0002 fV").
+ */
+const SHOWN_AS_ZERO: Readonly<Record<string, number>> = { '%': 0.005, V: 1e-6, s: 1e-15 };
+
+/** A measured value as the tables print it: sensible precision, never an exponent. */
+export function tableValue(value: number | null, unit: string | null, fallback: string): string {
+  if (value === null || unit === null || !Number.isFinite(value)) return fallback;
+  const floor = SHOWN_AS_ZERO[unit];
+  const v = floor !== undefined && Math.abs(value) < floor ? 0 : value;
+  if (unit === '%') return `${Number(v.toFixed(2))} %`;
+  if (unit === 'V' || unit === 's') return formatSI(v, unit, 4);
+  return String(Number(v.toPrecision(6)));
+}
+
 export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}): Promise<ScenarioReport> {
   const t0 = performance.now();
   const report: ScenarioReport = { file, title: null, sha256: null, verdict: 'pass', rows: [], error: null, notes: [], seconds: 0 };
@@ -106,7 +123,7 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
     const result = simulate(net, { force: opts.force });
     const { results } = measureNet(net, result);
     for (const r of results) {
-      report.rows.push({ kind: 'check', probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass, message: r.message });
+      report.rows.push({ kind: 'check', probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: tableValue(r.measured, r.unit, r.measuredText), pass: r.pass, message: r.message });
     }
     if (netChecks(net).length === 0) report.notes.push('no checks in this scenario');
     if (opts.golden) {
@@ -143,7 +160,7 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
           const plot = g.plots ? await writeGoldenPlot(g.plots, file, net.title, result.record.dtSample, rows, result.record.names, golden, cmp, g.tolerance) : null;
           for (const c of cmp) {
             const where = plot && !c.pass && c.measured !== null ? `; picture: ${plot}` : '';
-            report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: c.measuredText, pass: c.pass, message: c.message + where });
+            report.rows.push({ kind: 'golden', probe: c.probe, metric: 'golden', limit: c.limit, measured: c.measured, measuredText: tableValue(c.measured, 'V', c.measuredText), pass: c.pass, message: c.message + where });
           }
           if (plot) report.notes.push(`golden comparison failed: golden against this run in ${plot}`);
         }

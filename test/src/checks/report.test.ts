@@ -3,7 +3,7 @@
 // the Markdown summary and the terminal table.
 import { describe, expect, it } from 'vitest';
 import { formatCheckTable, toJsonReport, toJUnitXml, toMarkdown, xmlEscape } from '../../../src/checks/report.js';
-import { checkExitCode, totalsOf, type CheckRunReport, type ScenarioReport } from '../../../src/checks/run.js';
+import { checkExitCode, tableValue, totalsOf, type CheckRunReport, type ScenarioReport } from '../../../src/checks/run.js';
 import { parseXml, type XmlElement } from './xml.js';
 
 const pass = (probe: string, metric: string) => ({ kind: 'check' as const, probe, metric, limit: 'max 10 %', measured: 4, measuredText: '4 %', pass: true, message: `${metric} 4 % within max 10 %` });
@@ -125,5 +125,24 @@ describe('the test XML parser is strict (so a malformed report would fail above)
     ['<a>', /unclosed/],
   ])('%j is refused', (xml, msg) => {
     expect(() => parseXml(xml)).toThrow(msg);
+  });
+});
+
+describe('sensible precision and names', () => {
+  it('prints measured values without floating-point dust or exponents (0.01 %, 1 µV, 1 fs)', () => {
+    expect(tableValue(1.332e-14, '%', '1.332e-14 %')).toBe('0 %');
+    expect(tableValue(38.94321, '%', '')).toBe('38.94 %');
+    expect(tableValue(2.168e-19, 'V', '0.0002168 fV')).toBe('0 V');
+    expect(tableValue(0.0123456, 'V', '')).toBe('12.35 mV');
+    expect(tableValue(3.1674e-9, 's', '')).toBe('3.167 ns');
+    expect(tableValue(3, 'count', '3')).toBe('3');
+    expect(tableValue(null, '%', 'n/a')).toBe('n/a');
+  });
+
+  it('names a JUnit test case after the probe, the metric and the limit, without repeating the metric', () => {
+    const mono = { kind: 'check' as const, probe: 'mcu_in', metric: 'monotonic', limit: 'monotonic', measured: 1, measuredText: 'yes', pass: true, message: 'monotonic' };
+    const one: ScenarioReport[] = [{ file: 'n.json', title: 'n', sha256: 'x', verdict: 'pass', rows: [mono, pass('rx', 'overshoot')], error: null, notes: [], seconds: 0 }];
+    const names = kids(kids(parseXml(toJUnitXml({ scenarios: one, totals: totalsOf(one), exitCode: 0 })), 'testsuite')[0]!, 'testcase').map((c) => c.attrs.name);
+    expect(names).toEqual(['mcu_in monotonic', 'rx overshoot max 10 %']);
   });
 });
