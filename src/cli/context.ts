@@ -11,4 +11,9 @@ export interface CliContext {
    * The real CLI uses it to remove temporary files if the user interrupts the write (Ctrl-C).
    */
   guardWrites?: () => () => void;
+  /**
+   * Calls `stop` once on Ctrl-C or SIGTERM; returns a function that stops listening. Long-running
+   * commands (`run --watch`) use it to stop cleanly; without it they run until they stop by themselves.
+   */
+  onInterrupt?: (stop: () => void) => () => void;
 }

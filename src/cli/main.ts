@@ -20,7 +20,19 @@ function guardWrites(): () => void {
   return () => handlers.forEach((off) => off());
 }
 
-runCli(process.argv.slice(2), { guardWrites }).then(
+/** Ctrl-C or SIGTERM calls `stop` (once) instead of ending the process. */
+function onInterrupt(stop: () => void): () => void {
+  const signals = ['SIGINT', 'SIGTERM'] as const;
+  const off = () => signals.forEach((s) => process.off(s, handler));
+  const handler = () => {
+    off();
+    stop();
+  };
+  signals.forEach((s) => process.on(s, handler));
+  return off;
+}
+
+runCli(process.argv.slice(2), { guardWrites, onInterrupt }).then(
   (code) => {
     process.exitCode = code;
   },

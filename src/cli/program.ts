@@ -45,11 +45,12 @@ export function createProgram(ctx: CliContext): Command {
 export interface RunCliOptions {
   io?: CliIO;
   guardWrites?: CliContext['guardWrites'];
+  onInterrupt?: CliContext['onInterrupt'];
 }
 
 /** Runs the CLI on `args` (without the node and script paths) and returns the exit code. */
 export async function runCli(args: readonly string[], options: RunCliOptions = {}): Promise<ExitCode> {
-  const ctx: CliContext = { io: options.io ?? processIO, exitCode: EXIT.ok, guardWrites: options.guardWrites };
+  const ctx: CliContext = { io: options.io ?? processIO, exitCode: EXIT.ok, guardWrites: options.guardWrites, onInterrupt: options.onInterrupt };
   const program = createProgram(ctx);
   try {
     await program.parseAsync([...args], { from: 'user' });

@@ -1,4 +1,4 @@
-// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report] [--explore]`
+// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report] [--explore] [--watch [--port N]]`
 import type { Command } from 'commander';
 import { basename, extname, join, resolve } from 'node:path';
 import { runScenarioFile } from '../../index.js';
@@ -26,6 +26,10 @@ export interface RunCommandOptions {
   ignoreChecks?: boolean;
   /** Also write explore.html, the interactive page. */
   explore?: boolean;
+  /** Serve explore.html on 127.0.0.1 and run again whenever the scenario is saved. */
+  watch?: boolean;
+  /** Port for --watch, as typed (default 0: any free port). */
+  port?: string;
 }
 
 /** The views and frame count asked for on the command line; throws UsageError on a bad value. */
@@ -73,10 +77,20 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
   try {
     chosen = viewOptions(opts);
     dirs = outputFolders(files, opts.out);
+    if (opts.watch && files.length !== 1) throw new UsageError(`--watch takes one scenario (got ${files.length})`);
+    if (opts.port !== undefined && !opts.watch) throw new UsageError('--port goes with --watch');
+    if (opts.watch) {
+      const { parsePort } = await import('./run-watch.js');
+      parsePort(opts.port);
+    }
   } catch (e) {
     const f = describeFailure(e);
     io.err(f.lines.map((l) => `ladderwave run: ${l}\n`).join(''));
     return f.code;
+  }
+  if (opts.watch) {
+    const { watchRun } = await import('./run-watch.js');
+    return watchRun(files[0], dirs[0], opts, chosen, ctx);
   }
   const codes: ExitCode[] = [];
   for (let i = 0; i < files.length; i++) {
@@ -146,6 +160,8 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')
     .option('--ignore-checks', 'print the check verdicts but exit 0 even when a check fails')
     .option('--explore', 'also write explore.html: an interactive page (zoom, cursors, the voltage along the route at any instant, clickable measurements); opens offline in any browser')
+    .option('--watch', 'serve explore.html on 127.0.0.1 and run again whenever the scenario file is saved; the open page reloads, or lists the saved file\'s problems (one scenario; Ctrl-C stops)')
+    .option('--port <n>', 'port for --watch on 127.0.0.1 (default 0: any free port)')
     .action(async (files: string[], opts: RunCommandOptions) => {
       ctx.exitCode = await runCommand(files, opts, ctx);
     });

@@ -25,18 +25,21 @@ export function startLive(live: LiveData, banner: HTMLElement, status: HTMLEleme
     if (problems && problems.length) replaceChildren(banner, ...problemList(problems, failedAt));
   };
   show(live.problems, live.failedAt);
-  status.textContent = 'Watching the scenario file: saving it runs it again.';
+  const watching = 'Watching the scenario file: saving it runs it again.';
+  status.textContent = watching;
   const events = new EventSource(live.events);
   events.addEventListener('run', (e) => {
     const m = JSON.parse((e as MessageEvent<string>).data) as { revision: number };
     if (m.revision !== live.revision) location.reload();
+    else status.textContent = watching;
   });
   events.addEventListener('problems', (e) => {
     const m = JSON.parse((e as MessageEvent<string>).data) as { revision: number; problems: LiveProblem[]; failedAt: number };
     live.revision = m.revision;
     show(m.problems, m.failedAt);
+    status.textContent = watching;
   });
   events.addEventListener('busy', () => (status.textContent = 'Running the saved scenario…'));
   events.addEventListener('error', () => (status.textContent = 'Lost the watch server (stopped?). The page shows the last result.'));
-  events.addEventListener('open', () => (status.textContent = 'Watching the scenario file: saving it runs it again.'));
+  events.addEventListener('open', () => (status.textContent = watching));
 }
