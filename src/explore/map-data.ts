@@ -1,9 +1,10 @@
 // The space–time map as the explore page holds it: the engine's recorded rows and columns unchanged
-// (single precision), one path per receiver, and the PNG map's colour scale so both look alike.
+// (single precision), one path per receiver (a net without branches has one), and the PNG map's colour
+// scale so both look alike.
 import type { RouteMapRecord } from '../../sim/result.js';
 import { colorNormalization } from '../render/heatmap.js';
 import { coolWarm } from '../render/palette.js';
-import { firstEdgeTransit, idleLevel, mapWindow } from '../views/map.js';
+import { firstEdgeTransit, idleLevel, mapWindow, pathMap } from '../views/map.js';
 import { packF32 } from './pack.js';
 import type { MapData, MapPath } from './payload.js';
 import { formatSI } from '../units.js';
@@ -20,24 +21,28 @@ export function mapPalette(): string[] {
   return out;
 }
 
-/** The paths of the map: a route without branches is one path, driver pin to receiver, every column in order. */
+/**
+ * The paths of the map, one per receiver (the main receiver's first), each the engine's columns from the
+ * driver pin to its receiver with their distances along that path, its items (branch points among them)
+ * and the places where other paths leave it.
+ */
 export function mapPaths(rm: RouteMapRecord): MapPath[] {
-  const n = rm.positions.length;
-  return [
-    {
-      receiver: 'receiver',
-      columns: Array.from({ length: n }, (_, i) => i),
-      positions: Array.from(rm.positions),
-      items: rm.items.map((it) => ({ name: it.name, kind: it.kind, from: it.from, to: it.to })),
-    },
-  ];
+  return rm.paths.map((p) => ({
+    receiver: p.receiver,
+    columns: Array.from(p.columns),
+    positions: Array.from(p.positions),
+    items: p.items.map((it) => ({ name: it.name, kind: it.kind, from: it.from, to: it.to })),
+    junctions: p.junctions.map((j) => ({ item: j.item, at: j.at, receivers: [...j.receivers] })),
+  }));
 }
 
 export function mapData(rm: RouteMapRecord): MapData {
   const [rows, columns] = rm.values.shape as [number, number];
   const center = idleLevel(rm);
-  const window = mapWindow(rm).window;
-  const transit = firstEdgeTransit(rm);
+  // the time view and first instant follow the main path, as the PNG's panels do
+  const main = pathMap(rm, 0);
+  const window = mapWindow(main).window;
+  const transit = firstEdgeTransit(main);
   const norm = colorNormalization(rm.values.data, { kind: 'diverging', label: 'Voltage', unit: 'V', center });
   return {
     dtRow: rm.dtRow,
@@ -54,7 +59,7 @@ export function mapData(rm: RouteMapRecord): MapData {
 /** A sentence for the page about the map's data. */
 export function mapNote(m: MapData): string {
   return (
-    `Space–time map: the engine's record of the voltage along the route, ${m.columns} places × ${m.rows} instants ` +
+    `Space–time map: the engine's record of the voltage along the ${m.paths.length > 1 ? `net (${m.paths.length} paths, one per receiver)` : 'route'}, ${m.columns} places × ${m.rows} instants ` +
     `(every ${formatSI(m.dtRow, 's')}), held in single precision (7 significant digits); the time slider moves between recorded instants.`
   );
 }

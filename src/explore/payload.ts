@@ -48,6 +48,8 @@ export interface MapPath {
   /** Distance of each of those columns from the driver pin (m), non-decreasing. */
   positions: number[];
   items: MapItem[];
+  /** Branch points on this path where other paths leave it: distance (m), branch item, receivers reached that way. */
+  junctions: { item: string; at: number; receivers: string[] }[];
 }
 
 /** The voltage along the net over time, as the engine recorded it (rows of equal time steps). */

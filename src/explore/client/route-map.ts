@@ -1,7 +1,9 @@
 // The route section: per path from the driver pin to a receiver, the space–time map (distance across,
 // time running downward, coloured as the PNG map) and below it the voltage along that path at the
 // instant the time slider chooses; segment ends dashed, lumped parts solid, receivers named. The play
-// button steps through the recorded instants of the map's time view, over and over.
+// button steps through the recorded instants of the map's time view, over and over. A branched net has
+// one path per receiver: the Path chooser shows one of them (the main path first) or all, one under
+// another, on one time slider.
 import type { MapData, MapItem, MapPath } from '../payload.js';
 import { createChart, type Chart } from './chart.js';
 import { el, innerWidth, replaceChildren, section } from './dom.js';
@@ -28,6 +30,7 @@ const IMAGE_COLUMNS = 720;
 
 interface PathView {
   path: MapPath;
+  box: HTMLElement;
   map: Chart;
   profile: Chart;
   table: HTMLElement;
@@ -126,7 +129,7 @@ function placeLabels(u: uPlot, ctx: CanvasRenderingContext2D, path: MapPath): vo
   const ordered: Label[] = [
     { text: 'driver pin', at: path.positions[0]!, bold: false, align: 'left' },
     { text: path.receiver, at: path.positions[n - 1]!, bold: true, align: 'right' },
-    ...items.filter((it) => it.kind !== 'line').map((it): Label => ({ text: it.name, at: it.from, bold: true, align: 'center' })),
+    ...items.filter((it) => it.kind !== 'line').map((it): Label => ({ text: partLabel(path, it), at: it.from, bold: true, align: 'center' })),
     ...items.filter((it) => it.kind === 'line').map((it): Label => ({ text: it.name, at: (it.from + it.to) / 2, bold: false, align: 'center' })),
   ];
   for (const it of ordered) {
@@ -161,8 +164,26 @@ function drawNow(u: uPlot, ctx: CanvasRenderingContext2D, t: number): void {
   ctx.restore();
 }
 
-function pathTitle(path: MapPath, many: boolean): string {
-  return many ? `Driver pin to ${path.receiver}` : 'Driver pin to receiver';
+/** A part's name; a branch point's also says where the other paths leaving there go ("tee1 ⤷ adcA"). */
+function partLabel(path: MapPath, it: MapItem): string {
+  if (it.kind !== 'branch') return it.name;
+  const leaving = path.junctions.filter((j) => j.item === it.name).flatMap((j) => j.receivers);
+  return leaving.length ? `${it.name} ⤷ ${leaving.join(', ')}` : it.name;
+}
+
+function pathTitle(path: MapPath, index: number, many: boolean): string {
+  if (!many) return 'Driver pin to receiver';
+  return `${index === 0 ? 'Main path' : 'Branch'}: driver pin to ${path.receiver}`;
+}
+
+/** The chooser of a branched net's paths: each one alone, or every path one under another. */
+function pathChooser(paths: MapPath[]): HTMLSelectElement {
+  return el(
+    'select',
+    { id: 'map-path', 'aria-label': 'path shown along the route' },
+    ...paths.map((p, k) => el('option', { value: k, selected: k === 0 }, `${k === 0 ? 'main path' : 'branch'} to ${p.receiver}`)),
+    el('option', { value: 'all' }, `every path (${paths.length}), one under another`),
+  );
 }
 
 /** The smallest and largest voltage anywhere on the map, padded by 5 %: the profile's fixed scale. */
@@ -195,6 +216,7 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
   const wholeBtn = el('button', { type: 'button' }, 'Whole run');
   const holder = el('div', { class: 'paths' });
   const many = map.paths.length > 1;
+  const chooser = many ? pathChooser(map.paths) : null;
   const element = section(
     'route',
     'Along the route',
@@ -205,7 +227,8 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
         `${formatSI(map.colors.center, 'V')}, cool below; dashed: ends of line segments, solid: lumped parts). Click the map or move the slider to choose an instant; ` +
         'below, the voltage along the route at that instant. Play steps through the instants of the map’s time view; zoom the map like the waveforms.',
     ),
-    el('div', { class: 'toolbar' }, play, el('label', {}, 'Speed ', speedSel), el('label', { class: 'slider' }, 'Instant ', slider), timeText, wholeBtn),
+    many ? el('p', { class: 'help' }, `This net branches: ${map.paths.length} paths from the driver pin, one per receiver, on one time axis and one colour scale. Choose the path to show; ⤷ marks where other paths leave.`) : null,
+    el('div', { class: 'toolbar' }, chooser ? el('label', {}, 'Path ', chooser) : null, play, el('label', {}, 'Speed ', speedSel), el('label', { class: 'slider' }, 'Instant ', slider), timeText, wholeBtn),
     holder,
   );
   const views: PathView[] = [];
@@ -242,11 +265,12 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
       const table = el('table', { class: 'profile-table', id: `profile-table-${p}` });
       const details = el('details', {}, el('summary', {}, 'Values along the route at this instant'), table);
       const readout = viewReadout(`map-view-${p}`, 'm', 's');
-      holder.appendChild(el('div', { class: 'path' }, el('h3', {}, pathTitle(path, many)), mapHost, readout.element, profileHost, details));
+      const box = el('div', { class: 'path', id: `path-${p}`, 'data-receiver': path.receiver, hidden: p > 0 }, el('h3', {}, pathTitle(path, p, many)), mapHost, readout.element, profileHost, details);
+      holder.appendChild(box);
       const xWhole: [number, number] = [path.positions[0]!, path.positions[path.positions.length - 1]!];
       const image = mapImage(path, map.rows, at, map.colors);
       const mapChart = createChart(mapHost, width, {
-        name: `space–time map, ${pathTitle(path, many)}`,
+        name: `space–time map, ${pathTitle(path, p, many)}`,
         x: { label: 'Distance from the driver pin', unit: 'm' },
         y: { label: 'Time', unit: 's' },
         height: 420,
@@ -278,7 +302,7 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
       mapChart.redraw();
 
       const profile = createChart(profileHost, width, {
-        name: `voltage along the route at the chosen instant, ${pathTitle(path, many)}`,
+        name: `voltage along the route at the chosen instant, ${pathTitle(path, p, many)}`,
         x: { label: 'Distance from the driver pin', unit: 'm' },
         y: { label: 'Voltage', unit: 'V' },
         height: 260,
@@ -288,7 +312,7 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
       });
       profile.overlays.push((u, ctx) => drawPlaces(u, ctx, path, false, true));
       profile.redraw();
-      const v: PathView = { path, map: mapChart, profile, table, details };
+      const v: PathView = { path, box, map: mapChart, profile, table, details };
       details.addEventListener('toggle', () => details.open && fillTable(v, Float64Array.from(path.columns, (c) => at(row, c))));
       views.push(v);
       window.addEventListener('resize', () => {
@@ -297,13 +321,19 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
         profile.resize(w);
       });
     });
+    choosePath(chooser?.value ?? '0');
     showRow(row);
   }
 
-  // the animation: through the instants of the first path's map view, looping
+  function choosePath(choice: string): void {
+    views.forEach((v, k) => (v.box.hidden = choice !== 'all' && String(k) !== choice));
+    holder.dataset.shown = choice;
+  }
+
+  // the animation: through the instants of the first shown path's map view, looping
   function frame(): void {
     if (!playing) return;
-    const v = views[0]?.map.view();
+    const v = (views.find((w) => !w.box.hidden) ?? views[0])?.map.view();
     const r0 = v ? Math.max(0, Math.ceil(v.y[0] / map.dtRow)) : 0;
     const r1 = v ? Math.min(map.rows - 1, Math.floor(v.y[1] / map.dtRow)) : map.rows - 1;
     phase += speed;
@@ -318,6 +348,7 @@ export function routeSection(map: MapData, onTime: (t: number) => void): RouteVi
     phase = row;
     if (playing) requestAnimationFrame(frame);
   });
+  chooser?.addEventListener('change', () => choosePath(chooser.value));
   speedSel.addEventListener('change', () => (speed = Number(speedSel.value)));
   slider.addEventListener('input', () => {
     showRow(Number(slider.value), true);
