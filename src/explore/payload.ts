@@ -121,6 +121,10 @@ export interface SweepData {
   /** How many leading columns after `point` are varied values. */
   varied: number;
   probes: string[];
+  /** The probe overlaid when the page opens (the pick's, or the plotted metric's). */
+  probe: string;
+  /** The columns of `header` the page's table shows besides the point: varied values, the pick's and plotted metric's columns, the check tally. */
+  shown: string[];
   /** Points with waveforms in the page (all points, or a stated selection of them). */
   points: SweepPoint[];
   /** Points overlaid when the page opens. */

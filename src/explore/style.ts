@@ -53,6 +53,8 @@ details summary { cursor: pointer; color: var(--muted); font-size: 13px; }
 .problem { color: var(--fail); font-weight: 600; }
 .loading { color: var(--muted); }
 .points td input { margin: 0; }
+.points { max-height: 360px; overflow-y: auto; }
+.points td.mark { color: var(--pass); font-weight: 600; }
 footer { max-width: 1400px; margin: 0 auto 24px; padding: 10px 28px 0; color: var(--muted); font-size: 12px; border-top: 1px solid var(--rule); }
 pre.licence { white-space: pre-wrap; font-size: 11.5px; background: var(--panel); padding: 8px; border-radius: 4px; }
 `;

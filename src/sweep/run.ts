@@ -8,6 +8,7 @@
 //   sweep.json   the plan (scenario, what varied, columns), the pick or the yield
 //   best/        with --pick: probes.csv, waveforms.png and summary.json of the best point
 //   worst/       Monte Carlo: the same for the worst sample
+//   explore.html with --explore: the interactive page, overlaying chosen points' waveforms
 // A shard (--shard K/N) writes only its rows of sweep.csv and a sweep.json naming the shard;
 // merging the N shard folders writes exactly the files the whole sweep writes.
 import { mkdir, readFile } from 'node:fs/promises';
@@ -31,7 +32,7 @@ import { runPoints } from './pool.js';
 import { parseShard, shardPoints } from './spec.js';
 import { formatSweepCsv, parseSweepCsv, SweepCsvError } from './table.js';
 
-export const SWEEP_FILES = { csv: 'sweep.csv', png: 'sweep.png', json: 'sweep.json', best: 'best', worst: 'worst' } as const;
+export const SWEEP_FILES = { csv: 'sweep.csv', png: 'sweep.png', json: 'sweep.json', best: 'best', worst: 'worst', explore: 'explore.html' } as const;
 
 /** Shard folders that do not fit together, a missing sweep.json, ... (bad input, exit 2). */
 export class SweepInputError extends Error {
@@ -112,6 +113,8 @@ export interface SweepRunOptions {
   onProgress?: (done: number, total: number) => void;
   width?: number;
   height?: number;
+  /** Also write explore.html (a whole sweep only): sweep.csv's points, and chosen points' waveforms overlaid. */
+  explore?: boolean;
 }
 
 /** Default output folder: out/<scenario name>-sweep (a shard: …/shard-K-of-N under it). */
@@ -195,6 +198,16 @@ async function writePointRun(
   return { files, deciding: r && { probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass } };
 }
 
+/** The sweep's explore.html (src/explore loaded only when asked for), the best or worst point marked. */
+async function explorePageOf(plan: SweepPlan, rows: SweepRow[], pick: PickReport | null, yld: YieldReport | null, force?: boolean): Promise<string> {
+  const { buildSweepPage } = await import('../explore/sweep-page.js');
+  const marked = [
+    ...(pick?.best ? [{ point: pick.best.point, label: 'best (--pick)' }] : []),
+    ...(yld?.worst ? [{ point: yld.worst.point, label: 'worst case' }] : []),
+  ];
+  return buildSweepPage({ plan, rows, marked, pick, force });
+}
+
 function sweepJson(file: SweepFile): string {
   return JSON.stringify(file, null, 2) + '\n';
 }
@@ -222,6 +235,7 @@ export async function writeSweepOutputs(outDir: string, plan: SweepPlan, shard: 
       }
       const mark = pick?.best ? { point: pick.best.point, label: `best: point ${pick.best.point}` } : null;
       await batch.stage(join(outDir, SWEEP_FILES.png), await renderSweepPlot(plan, rows, { mark, yield: yld, width: opts.width, height: opts.height }));
+      if (opts.explore) await batch.stage(join(outDir, SWEEP_FILES.explore), await explorePageOf(plan, rows, pick, yld, opts.force));
     }
     const file: SweepFile = { format: plan.format, tool: toolInfo(), shard, rows: rows.length, result, plan };
     await batch.stage(join(outDir, SWEEP_FILES.json), sweepJson(file));

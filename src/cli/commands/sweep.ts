@@ -1,5 +1,5 @@
 // `ladderwave sweep SCENARIO --vary PATH=A..B:N [--vary …] [--pick EXPR] [--spread PATH=±X --samples N --seed S]
-//   [--metric M] [--jobs N] [--shard K/N] [--out DIR] [--quiet] [--force]`
+//   [--metric M] [--jobs N] [--shard K/N] [--out DIR] [--quiet] [--force] [--explore]`
 // Thin: the work is in src/sweep (runSweep).
 import type { Command } from 'commander';
 import { createProgress, defaultJobs, defaultSweepFolder, parseShard, PickError, runSweep, SweepInputError, SweepSpecError } from '../../sweep/index.js';
@@ -19,6 +19,7 @@ export interface SweepCommandOptions {
   out?: string;
   quiet?: boolean;
   force?: boolean;
+  explore?: boolean;
 }
 
 /** Usage-type errors of sweeps and merges: printed as they are, exit 2. */
@@ -42,6 +43,7 @@ export async function sweepCommand(file: string, opts: SweepCommandOptions, ctx:
     const samples = whole(opts.samples, '--samples', 1);
     const seed = whole(opts.seed, '--seed', 0);
     const shard = opts.shard !== undefined ? parseShard(opts.shard) : null;
+    if (shard && opts.explore) throw new SweepSpecError('--explore needs the whole sweep: run it without --shard (a shard holds only some points)');
     const out = opts.out ?? defaultSweepFolder(file, shard);
     let progress: ReturnType<typeof createProgress> | undefined;
     const outcome = await runSweep(
@@ -50,6 +52,7 @@ export async function sweepCommand(file: string, opts: SweepCommandOptions, ctx:
         out,
         jobs,
         force: opts.force,
+        explore: opts.explore,
         onProgress: (done, total) => {
           progress ??= createProgress({ total, label: 'sweep', quiet: opts.quiet, stream: { write: (s) => io.err(s), isTTY: stderr.isTTY, columns: stderr.columns } });
           progress.update(done);
@@ -103,6 +106,7 @@ export function registerSweepCommand(program: Command, ctx: CliContext): void {
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sweep; a shard: …/shard-K-of-N)')
     .option('-q, --quiet', 'print nothing except errors (no progress)')
     .option('-f, --force', 'run even if a point would exceed a size limit')
+    .option('--explore', 'also write explore.html: the points in a table, chosen points\' waveforms overlaid (zoom, cursors); opens offline in any browser')
     .action(async (file: string, opts: SweepCommandOptions) => {
       ctx.exitCode = await sweepCommand(file, opts, ctx);
     });

@@ -61,6 +61,7 @@ describe('ladderwave sweep', () => {
     [[], /nothing to sweep/],
     [['--vary', 'route.rs.series.r=1ohm,2ohm', '--shard', '0/3'], /--shard "0\/3": K must be from 1 to N/],
     [['--vary', 'route.rs.series.r=1ohm,2ohm', '--jobs', 'lots'], /--jobs lots: expected a whole number ≥ 1/],
+    [['--vary', 'route.rs.series.r=1ohm,2ohm', '--shard', '1/2', '--explore'], /--explore needs the whole sweep: run it without --shard/],
   ])('%j exits 2 with the reason', async (args, msg) => {
     const d = dir();
     const f = writeScenario(d, 'net.json', NET);
