@@ -1,14 +1,15 @@
 // Watch mode: the page served by `ladderwave run --watch` listens to its server. When a run finishes
 // the page reloads; when the saved scenario has problems, they are listed at the top of the page,
-// over the last good result, until a good save.
+// over the last good result (or alone, when nothing has run yet), until a good save.
 import type { LiveData, LiveProblem } from '../payload.js';
 import { el, replaceChildren } from './dom.js';
 
-function problemList(problems: LiveProblem[], failedAt: number | null): HTMLElement[] {
-  const when = failedAt ? ` (saved ${new Date(failedAt).toLocaleTimeString()})` : '';
+function problemList(problems: LiveProblem[], failedAt: number | null, hasResult: boolean): HTMLElement[] {
+  const when = failedAt ? ` (read at ${new Date(failedAt).toLocaleTimeString()})` : '';
+  const below = hasResult ? 'Below is the last run that worked.' : 'Nothing has run yet.';
   return [
-    el('h2', {}, `The saved scenario has ${problems.length === 1 ? 'a problem' : `${problems.length} problems`}${when}`),
-    el('p', {}, 'Below is the last run that worked. Fix the file and save it again; the page reloads by itself.'),
+    el('h2', {}, `The scenario file has ${problems.length === 1 ? 'a problem' : `${problems.length} problems`}${when}`),
+    el('p', {}, `${below} Fix the file and save it; the page reloads by itself.`),
     el(
       'ul',
       {},
@@ -19,10 +20,11 @@ function problemList(problems: LiveProblem[], failedAt: number | null): HTMLElem
   ];
 }
 
-export function startLive(live: LiveData, banner: HTMLElement, status: HTMLElement): void {
+/** `hasResult`: the page shows a run (the last good one) under the problems. */
+export function startLive(live: LiveData, banner: HTMLElement, status: HTMLElement, hasResult: boolean): void {
   const show = (problems: LiveProblem[] | null, failedAt: number | null): void => {
     banner.hidden = !problems || problems.length === 0;
-    if (problems && problems.length) replaceChildren(banner, ...problemList(problems, failedAt));
+    if (problems && problems.length) replaceChildren(banner, ...problemList(problems, failedAt, hasResult));
   };
   show(live.problems, live.failedAt);
   const watching = 'Watching the scenario file: saving it runs it again.';

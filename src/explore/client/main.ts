@@ -43,7 +43,7 @@ function start(): void {
   const status = el('p', { class: 'live-status', id: 'live-status', hidden: !data.live });
   const banner = el('div', { class: 'problems', id: 'problems', role: 'alert', hidden: true });
   replaceChildren(main, header(data, status), banner);
-  if (data.live) startLive(data.live, banner, status);
+  if (data.live) startLive(data.live, banner, status, data.run !== undefined);
   if (data.run) runSections(data.run, data, main);
   if (data.sweep) sweepSection(data.sweep, data, main);
   if (data.notes.length) main.appendChild(el('section', { id: 'notes' }, el('h2', {}, 'About the data'), el('ul', {}, ...data.notes.map((n) => el('li', {}, n)))));

@@ -90,4 +90,34 @@ describe('watch mode in headless Chromium', { timeout: 150_000 }, () => {
       await session?.close();
     }
   });
+
+  it('shows the problems alone when the file has never run, and the run after a good save', async (ctx) => {
+    if (!needBrowser(ctx)) return;
+    const d = newDir();
+    const file = writeScenario(d, 'net.json', net('50ohm', '-3in'));
+    let session: WatchSession | undefined;
+    browser ??= await launchBrowser();
+    try {
+      session = await startWatch({ file, outDir: join(d, 'out'), settle: 50, stopAfter: 100_000 });
+      const page = await browser.context.newPage();
+      const seen = watchPage(page, (u) => u.startsWith(session!.url));
+      await page.goto(session.url);
+      await page.waitForSelector('body[data-ready="true"]');
+      expect(await page.locator('#problems li.problem-item').getAttribute('data-path')).toBe('route[0].length');
+      expect(await page.locator('#problems').textContent()).toContain('Nothing has run yet.');
+      expect(await page.locator('#waveforms').count()).toBe(0);
+      await shot(page, '5-never-ran');
+
+      const reloaded = page.waitForEvent('load');
+      writeFileSync(file, JSON.stringify(net('50ohm'), null, 2));
+      await reloaded;
+      await page.waitForSelector('body[data-ready="true"]');
+      expect(await page.locator('#problems').isHidden()).toBe(true);
+      expect(Math.abs((await finalRx(page)) - 0.5)).toBeLessThan(1e-9);
+      expect(seen.problems).toEqual([]);
+      expect(seen.requests).toEqual([]);
+    } finally {
+      await session?.close();
+    }
+  });
 });
