@@ -9,6 +9,8 @@
 // "Mohm" a mega-ohm, "mm" a millimetre); units marked `fixed(...)` do not ("in", "mil", "ft", "c").
 // An exact unit match always wins over a prefix reading ("ft" is a foot, never a femto-t).
 
+import { editDistance } from './edit-distance.js';
+
 /** Speed of light in vacuum, m/s (exact by the SI definition of the metre). */
 export const SPEED_OF_LIGHT = 299_792_458;
 
@@ -251,6 +253,50 @@ export function unitList(dim: Dimension): string {
   return names.join(', ') + (anyPrefix ? ' (*: with an SI prefix f p n u m k M G T)' : '');
 }
 
+/** Every spelling a dimension accepts: each unit, and each prefix in front of a unit that takes one. */
+function spellings(dim: Dimension): string[] {
+  const out: string[] = [];
+  for (const [u, d] of Object.entries(DIMENSIONS[dim].units as Record<string, UnitDef>)) {
+    out.push(u);
+    if (d.prefixes) for (const p of Object.keys(PREFIX_EXP)) if (!/[\u00b5\u03bc]/.test(p)) out.push(p + u);
+  }
+  return out;
+}
+
+/** Words people write for our units, mapped to our spelling (applied case-insensitively before matching). */
+const UNIT_WORDS: ReadonlyArray<readonly [RegExp, string]> = [
+  [/inch(es)?/gi, 'in'],
+  [/mils/gi, 'mil'],
+  [/(feet|foot)/gi, 'ft'],
+  [/met(er|re)s?/gi, 'm'],
+  [/seconds?|secs?/gi, 's'],
+  [/volts?/gi, 'V'],
+  [/farads?/gi, 'F'],
+  [/henr(y|ies|ys)/gi, 'H'],
+  [/hertz/gi, 'Hz'],
+  [/ounces?/gi, 'oz'],
+  [/\s+/g, ''],
+];
+
+/**
+ * Spellings of this dimension's units that `unit` most likely meant: the same letters in another case
+ * ("pf" → "pF", "PS" → "ps"), or a written-out word ("150ps/inch" → "ps/in"), or one letter off.
+ * Several when the case decides between prefixes ("MS": "ms" or "Ms"); none when nothing is close.
+ */
+export function suggestUnits(dim: Dimension, unit: string): string[] {
+  if (unit === '') return [];
+  const all = spellings(dim);
+  let word = unit;
+  for (const [re, to] of UNIT_WORDS) word = word.replace(re, to);
+  for (const w of [unit, word]) {
+    if (w !== unit && all.includes(w)) return [w];
+    const same = all.filter((a) => a.toLowerCase() === w.toLowerCase());
+    if (same.length) return same;
+  }
+  const near = all.filter((a) => editDistance(a.toLowerCase(), word.toLowerCase()) === 1 && a.length >= 2);
+  return near.length > 0 && near.length <= 3 ? near : [];
+}
+
 /**
  * Parse a quantity of dimension `dim`. `value` may be a number (SI base units) or a string such as
  * "600ps", "600 ps", "6e-10" (base units), "-3in". Optionally check it lies in `range`.
@@ -265,8 +311,12 @@ export function parseQuantity(value: unknown, dim: Dimension, range?: Range, exa
     if (!m) return { ok: false, expected };
     const unit = resolveUnit(dim, m[2]);
     if (unit === undefined) {
-      // A unit of some other dimension: just say what was expected. An unknown unit: list ours.
+      // A misspelt unit of this dimension ("3 pf", "150ps/inch"): suggest the spelling. Otherwise a unit
+      // of some other dimension: just say what was expected. An unknown unit: list ours.
+      // A unit of another dimension is only taken for a typo when it differs from ours by case ("2nS").
       const known = dimensionsOfUnit(m[2]).length > 0;
+      const guesses = suggestUnits(dim, m[2]).filter((g) => !known || g.toLowerCase() === m[2].toLowerCase());
+      if (guesses.length) return { ok: false, expected: `${expected} — did you mean ${guesses.map((g) => `"${m[1]}${g}"`).join(' or ')}?` };
       const units = unitList(dim);
       return { ok: false, expected: known || units === '' ? expected : `${expected}; units: ${units}` };
     }

@@ -3,6 +3,9 @@
 // Validation never stops at the first problem: every check appends to a Problems list and the
 // loader throws one ScenarioError holding them all, one line per problem:
 //   demo.json:14:7 route[2].length: "-3in" — expected a length ≥ 0 like "3in"
+import { editDistance } from '../edit-distance.js';
+
+export { editDistance };
 
 export interface Problem {
   /** The scenario file's name as given to the loader. */
@@ -123,26 +126,6 @@ export function joinIndex(path: string, index: number): string {
 
 // ---- "did you mean" --------------------------------------------------------------------------
 
-/** Optimal-string-alignment distance (Levenshtein plus adjacent transpositions: "lenght" → "length" is 1). */
-export function editDistance(a: string, b: string): number {
-  const m = a.length;
-  const n = b.length;
-  const d: number[][] = Array.from({ length: m + 1 }, (_, i) => {
-    const row = new Array<number>(n + 1).fill(0);
-    row[0] = i;
-    return row;
-  });
-  for (let j = 0; j <= n; j++) d[0][j] = j;
-  for (let i = 1; i <= m; i++) {
-    for (let j = 1; j <= n; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let v = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) v = Math.min(v, d[i - 2][j - 2] + 1);
-      d[i][j] = v;
-    }
-  }
-  return d[m][n];
-}
 
 /** The known word closest to `word`, if it is close enough to be a plausible typo. */
 export function closest(word: string, known: readonly string[]): string | undefined {

@@ -8,6 +8,7 @@ import {
   formatSI,
   parseQuantity,
   quantity,
+  suggestUnits,
   unitFactor,
   type Dimension,
 } from '../../src/units.js';
@@ -119,7 +120,7 @@ describe('parseQuantity: refusals say what was expected', () => {
     ['250nH/m', 'delayPerLength', 'a delay per length like "6.67ns/m"'],
     ['6.67ns/m', 'velocity', 'a velocity like "0.66c"'],
     ['20uS/m', 'conductance', 'a conductance like "20mS"'],
-    ['2nS', 'time', 'a time like "600ps"'], // nanosiemens, not nanoseconds
+    ['3pS', 'length', 'a length like "3in"'], // picosiemens: no length unit is spelt p-s in any case
   ] as const)('%s as %s', (text, dim, expected) => {
     expect(parseQuantity(text, dim)).toEqual({ ok: false, expected });
   });
@@ -154,6 +155,49 @@ describe('parseQuantity: refusals say what was expected', () => {
   it('quantity() throws with the expectation', () => {
     expect(() => quantity('3in', 'time')).toThrow('expected a time like "600ps"');
     expect(quantity('3in', 'length')).toBe(0.0762);
+  });
+});
+
+describe('parseQuantity: a misspelt unit gets the spelling it most likely meant', () => {
+  // Unit and prefix symbols are case-sensitive: F farad, s second, Hz hertz, m milli, M mega (BIPM,
+  // The International System of Units, 9th ed. 2019, Tables 4 and 7). A letter in the wrong case is the
+  // commonest slip; the suggestion is still a refusal, never a silent reading.
+  it.each([
+    ['3 pf', 'capacitance', '"3pF"'],
+    ['600 PS', 'time', '"600ps"'],
+    ['3.3 v', 'voltage', '"3.3V"'],
+    ['250nh/M', 'inductancePerLength', '"250nH/m"'],
+    ['1 OZ', 'thickness', '"1oz"'],
+    ['7 in/NS', 'velocity', '"7in/ns"'],
+    // written-out words for our symbols
+    ['150ps/inch', 'delayPerLength', '"150ps/in"'],
+    ['5 mils', 'length', '"5mil"'],
+    ['3 volts', 'voltage', '"3V"'],
+    ['10 meters', 'length', '"10m"'],
+    // one letter off
+    ['4 pff', 'capacitance', '"4fF" or "4pF"'],
+  ] as const)('%j as %s → %s', (text, dim, spelled) => {
+    const r = parseQuantity(text, dim);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.expected).toMatch(new RegExp(`— did you mean ${spelled.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}\\?$`));
+  });
+  it('where the case decides between two prefixes, both readings are offered: milli or mega', () => {
+    expect(suggestUnits('time', 'MS')).toEqual(['ms', 'Ms']);
+    expect(suggestUnits('frequency', 'mhz')).toEqual(['mHz', 'MHz']);
+  });
+  it('a unit of another dimension is taken for a slip only when the case differs: "2nS" (nanosiemens) as a time', () => {
+    const r = parseQuantity('2nS', 'time');
+    expect(r).toEqual({ ok: false, expected: 'a time like "600ps" — did you mean "2ns"?' });
+  });
+  it('nothing close: the units are listed instead', () => {
+    expect(suggestUnits('length', 'furlongs')).toEqual([]);
+    expect(parseQuantity('3 xyz', 'capacitance')).toEqual({ ok: false, expected: 'a capacitance like "3pF"; units: F* (*: with an SI prefix f p n u m k M G T)' });
+  });
+  it('every suggestion parses in its dimension', () => {
+    for (const [text, dim] of [['3 pf', 'capacitance'], ['150ps/inch', 'delayPerLength'], ['2 MS', 'time'], ['4 pff', 'capacitance']] as const) {
+      const unit = text.replace(/^[\d.]+\s*/, '');
+      for (const g of suggestUnits(dim, unit)) expect(parseQuantity(`1${g}`, dim).ok).toBe(true);
+    }
   });
 });
 
