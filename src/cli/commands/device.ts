@@ -7,6 +7,7 @@ import type { Command } from 'commander';
 import { join } from 'node:path';
 import { mkdir } from 'node:fs/promises';
 import { deviceReport, formatDeviceReport, ivPlot, waveformPlot } from '../../device-report/index.js';
+import { examples } from '../help.js';
 import { ibisBuffer, loadIbisFile, IbisError, type Corner, type IbisSelection } from '../../ibis/index.js';
 import { AtomicBatch } from '../../output/atomic.js';
 import type { CliContext } from '../context.js';
@@ -81,13 +82,14 @@ export function registerDeviceCommand(program: Command, ctx: CliContext): void {
     .command('device')
     .summary('print and plot a buffer model of an IBIS file: I/V tables and switching waveforms')
     .description(
-      'Read a model file of the open I/O buffer model standard (IBIS, ANSI/EIA-656; the subset in docs/devices.md)\n' +
-        'and print one model (or the model of one component pin) at a corner: its supply, C_comp, package,\n' +
-        'warnings and the parts of the file not used, its I/V tables as current into the pin against pin voltage,\n' +
-        'and its switching waveforms beside the model\'s own run into the same fixtures. Writes iv.png and\n' +
+      'Read a model file of the open I/O buffer model standard (IBIS, ANSI/EIA-656; the subset in docs/devices.md) ' +
+        'and print one model (or the model of one component pin) at a corner: its supply, C_comp, package, ' +
+        'warnings and the parts of the file not used, its I/V tables as current into the pin against pin voltage, ' +
+        'and its switching waveforms beside the model\'s own run into the same fixtures. Writes iv.png and ' +
         'waveforms.png to --out (default out/device-MODEL-CORNER).\n' +
         'Exit codes: 0 ok, 2 bad input or usage (a malformed file lists every problem with its line), 1 internal error.',
     )
+    .addHelpText('after', examples(['ladderwave device scenarios/models/orchard_sram.ibs --model dq_io --corner max']))
     .argument('<file>', 'IBIS model file (.ibs)')
     .option('-m, --model <name>', 'the [Model] to show')
     .option('-c, --component <name>', 'the [Component] whose pin to show (with --pin: uses the pin\'s package R/L/C)')

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { resolveThresholds } from '../../measure/index.js';
 import { EyeRequestError, eyeScenarioFile } from '../../output/eye.js';
 import { formatProblem } from '../../scenario/problems.js';
+import { examples } from '../help.js';
 import { formatSI, parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
@@ -115,11 +116,12 @@ export function registerEyeCommand(program: Command, ctx: CliContext): void {
     .command('eye')
     .summary('eye diagram of a bits or clock signal: eye.png and summary.json with eye height and width')
     .description(
-      'Simulate the scenario long enough for its whole bit pattern (PRBS-7 at least once; 64 unit intervals of a clock)\n' +
-        'plus the route’s settle time, fold the probe’s waveform into windows of two unit intervals, and write eye.png\n' +
+      'Simulate the scenario long enough for its whole bit pattern (PRBS-7 at least once; 64 unit intervals of a clock) ' +
+        'plus the route’s settle time, fold the probe’s waveform into windows of two unit intervals, and write eye.png ' +
         'and summary.json (section "eye": eye height over the sampling window, eye width, sampling instant, threshold).\n' +
         'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
     )
+    .addHelpText('after', examples(['ladderwave eye scenarios/solar-tracker-prbs-link.json --thresholds lvcmos25 --sample-window 30%']))
     .argument('<scenario>', 'scenario file (JSON or YAML) whose driver sends bits or a clock')
     .option('-p, --probe <name>', 'probe to fold (default: the probe at the receiver)')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>-eye)')

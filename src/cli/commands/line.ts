@@ -21,6 +21,7 @@ import {
   type LineInput,
 } from '../../lines-report/index.js';
 import { formatProblem, type Problem } from '../../scenario/problems.js';
+import { examples } from '../help.js';
 import { POSITIVE, parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
@@ -116,16 +117,22 @@ export function registerLineCommand(program: Command, ctx: CliContext): void {
     .command('line')
     .summary('print Z0, delay, R′ L′ G′ C′, attenuation and skin depth of lines')
     .description(
-      'Print, for each line of a scenario (or described with --microstrip, --stripline, --coax, --twoWire):\n' +
-        'Z0, ε_eff, delay per length, the high-frequency limit, and R′, L′, G′, C′, Z0, attenuation (dB/m, dB/in)\n' +
-        'and skin depth at DC and at the chosen frequencies.\n' +
-        'Geometry options take the keys of the scenario form as key=value pairs, e.g.\n' +
-        '  ladderwave line --microstrip width=8mil,height=5mil,thickness=1oz,er=4.3,lossTangent=0.02\n' +
-        'A coupled pair (--coupled-microstrip, --coupled-stripline, --coupled-modes) prints its L and C matrices,\n' +
-        'modal velocities and impedances, Z_odd, Z_even, Z_diff, Z_comm and the coupling coefficients K_b, K_f:\n' +
-        '  ladderwave line --coupled-microstrip width=5mil,spacing=6mil,height=4mil,er=4.2\n' +
-        '  ladderwave line --coupled-modes zOdd=45ohm,zEven=56ohm,delayOdd=150ps/in,delayEven=160ps/in\n' +
+      'Print, for each line of a scenario (or described with --microstrip, --stripline, --coax, --twoWire): ' +
+        'Z0, ε_eff, delay per length, the high-frequency limit, and R′, L′, G′, C′, Z0, attenuation (dB/m, dB/in) ' +
+        'and skin depth at DC and at the chosen frequencies. ' +
+        'Geometry options take the keys of the scenario form as key=value pairs (examples below).\n' +
+        'A coupled pair (--coupled-microstrip, --coupled-stripline, --coupled-modes) prints its L and C matrices, ' +
+        'modal velocities and impedances, Z_odd, Z_even, Z_diff, Z_comm and the coupling coefficients K_b, K_f.\n' +
         'Exit codes: 0 ok, 2 bad input or usage, 1 internal error.',
+    )
+    .addHelpText(
+      'after',
+      examples([
+        'ladderwave line --microstrip width=8mil,height=5mil,thickness=1oz,er=4.3,lossTangent=0.02',
+        'ladderwave line --coupled-microstrip width=5mil,spacing=6mil,height=4mil,er=4.2',
+        'ladderwave line --coupled-modes zOdd=45ohm,zEven=56ohm,delayOdd=150ps/in,delayEven=160ps/in',
+        'ladderwave line scenarios/backplane-fr4-lossy.json --freq 500MHz,2GHz',
+      ]),
     )
     .argument('[scenario]', 'scenario file (JSON or YAML)')
     .option('-i, --item <name>', 'only this route item or named line (repeatable)', collect)
