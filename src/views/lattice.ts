@@ -552,10 +552,10 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
     if (ar.boundary === 0) driverSteps.push([ar.time, ar.incident * (1 + gS), 0]);
     if (ar.boundary === n) receiverSteps.push([ar.time, ar.incident * (1 + gL), 0]);
   }
-  const plateaus = {
+  const plateaus = snapResidue({
     driver: toPlateaus(driverSteps, complete, (line, src) => dc.before.pin + pin.a * src + pin.b * line, dc.before.pin),
     receiver: toPlateaus(receiverSteps, complete, (line) => dc.before.receiver + rxTransfer * line, dc.before.receiver),
-  };
+  });
 
   return {
     supported: true,
@@ -578,6 +578,20 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
     horizon: complete,
     truncated,
   };
+}
+
+/** Share of the largest level below which a level is rounding left by waves that cancel (a clock's low: 8e-17 V). */
+export const RESIDUE_SHARE = 1e-9;
+
+/**
+ * Superposed waves that cancel exactly (a clock's falling edge undoing its rising edge) add up to a
+ * rounding residue, not 0; a level within RESIDUE_SHARE of the largest level at either end is 0.
+ */
+function snapResidue(p: { driver: Plateau[]; receiver: Plateau[] }): { driver: Plateau[]; receiver: Plateau[] } {
+  let scale = 0;
+  for (const q of [...p.driver, ...p.receiver]) scale = Math.max(scale, Math.abs(q.value));
+  const snap = (list: Plateau[]) => list.map((q) => (Math.abs(q.value) <= RESIDUE_SHARE * scale ? { ...q, value: 0 } : q));
+  return { driver: snap(p.driver), receiver: snap(p.receiver) };
 }
 
 /** A step at an end: time, increment of the line-side voltage, increment of the source voltage. */

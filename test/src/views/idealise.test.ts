@@ -128,4 +128,27 @@ describe('the idealised lattice against the simulation of the real net', () => {
     const rx = n.probes.findIndex((p) => p.at === 'receiver');
     expect(plateauError(probeTrace(r.record, rx), r.record.dtSample, diagram.plateaus.receiver, 1.5e-9, 0.1)).toBeLessThan(0.03 * 3.3);
   });
+
+  it('a clock’s settled low level is 0 V exactly, not the rounding left by superposed edges that cancel', () => {
+    // Superposition of a linear net: once a falling edge's ringing has died out, every wave of the rising
+    // edge has a twin of opposite sign, and the DC divider of a 0 V source with no rails gives 0 V; the
+    // sums leave ~1e-15 V of rounding, which the plot printed as "0.507 fV".
+    const n = withEndProbes(net({
+      signal: clock(125e-9, 1.5e-9, 2e-9),
+      rs: 10,
+      route: [{ kind: 'line', name: 'a', line: lineOf(50, 6.5e-9), length: 0.0508 }, { kind: 'line', name: 'b', line: lineOf(75, 4.8e-9), length: 0.25 }],
+      receiver: [part({ r: 1e6 })],
+      duration: 260e-9,
+    }));
+    const { diagram } = bounceLattice(n, 260e-9);
+    if (!diagram.supported) throw new Error(diagram.reasons.join());
+    for (const end of ['driver', 'receiver'] as const) {
+      // the low half-period: from the falling edge (~65 ns) to the next rising edge (~127.75 ns)
+      const low = diagram.plateaus[end].filter((p) => p.from > 70e-9 && p.from < 125e-9);
+      expect(low.length).toBeGreaterThan(2);
+      for (const p of low) expect(p.value === 0 || Math.abs(p.value) > 1e-9).toBe(true);
+      const settled = diagram.plateaus[end].find((p) => p.from <= 125e-9 && p.to > 125e-9);
+      expect(settled && Object.is(settled.value, 0)).toBe(true);
+    }
+  });
 });
