@@ -231,7 +231,19 @@ export function eyeTable(summary: ReportSummary): string | null {
   const closed = at(summary, ['eye', 'open']) === false && typeof windows === 'number' && windows > 0 ? ' The eye is closed at the thresholds: the height is the gap between the traces, not an opening a receiver sees.' : '';
   const warn = at(summary, ['eye', 'warnings']);
   const warnings = Array.isArray(warn) && warn.length ? ` Warning: ${warn.filter((w) => typeof w === 'string').join('; ')}.` : '';
-  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).${short}${closed}${warnings}`);
+  return renderTable('eye', ['Eye', 'Value'], rows, `At probe ${typeof probe === 'string' ? probe : '?'}; noise-free definitions (see the eye view).${short}${closed}${eyeNotes(summary, windows)}${warnings}`);
+}
+
+/**
+ * The eye's notes in summary.json that the caption does not already say (too few windows to trust, no
+ * delay found, no "0" or "1" folded), each as a sentence.
+ */
+function eyeNotes(summary: ReportSummary, windows: Json | undefined): string {
+  const notes = at(summary, ['eye', 'notes']);
+  if (!notes || typeof notes !== 'object' || Array.isArray(notes)) return '';
+  const said = new Set(['eyeWidth', ...(windows === 0 ? ['windows'] : [])]);
+  const texts = Object.entries(notes).filter(([k, v]) => !said.has(k) && typeof v === 'string').map(([, v]) => v as string);
+  return texts.map((t) => ` Note: ${t}.`).join('');
 }
 
 // ---------------------------------------------------------------- checks

@@ -1,7 +1,8 @@
 // The report's tables read summary.json: every number cell names its path and value, and its text is
 // that value with an SI prefix (BIPM, The International System of Units, 9th ed., table 7).
 import { describe, expect, it } from 'vitest';
-import { at, checksTable, formatCell, measurementTable, type ReportSummary } from '../../../src/report/tables.js';
+import { at, checksTable, eyeTable, formatCell, measurementTable, type ReportSummary } from '../../../src/report/tables.js';
+import { EYE_MIN_WINDOWS, fewWindowsNote } from '../../../src/views/eye.js';
 
 function cells(html: string): { path: string; value: string; text: string }[] {
   return [...html.matchAll(/data-path="([^"]*)" data-value="([^"]*)">([^<]*)</g)].map((m) => ({ path: m[1], value: m[2], text: m[3] }));
@@ -69,5 +70,31 @@ describe('checks table', () => {
 
   it('is absent without checks', () => {
     expect(checksTable({})).toBeNull();
+  });
+});
+
+describe('eye table', () => {
+  // An eye folded from fewer than EYE_MIN_WINDOWS windows is not one to trust (common practice: a handful
+  // of bits shows neither the pattern's worst case nor its spread); the run skips its picture, and the
+  // report's table must say so beside the numbers instead of printing them as if they held.
+  const eye = (windows: number, notes: Record<string, string>) => ({
+    eye: { probe: 'rx', eyeHeight: 3.27, eyeWidth: 61.6e-9, ui: 62.5e-9, windows, open: true, threshold: { level: 1.4 }, samplingWindow: { width: 12.5e-9 }, samplingTime: 34e-9, delay: 2e-9, notes, warnings: [] },
+  });
+  it('too few windows: the note is in the caption, with the numbers', () => {
+    const html = eyeTable(eye(2, { windows: fewWindowsNote(2) }) as ReportSummary) ?? '';
+    expect(EYE_MIN_WINDOWS).toBeGreaterThan(2);
+    expect(html).toContain(`Note: ${fewWindowsNote(2)}.`);
+    expect(html).toContain('data-path="eye.eyeHeight"');
+  });
+  it('enough windows: no note', () => {
+    const html = eyeTable(eye(40, {}) as ReportSummary) ?? '';
+    expect(html).not.toContain('Note:');
+  });
+  it('a closed eye is said once, not again from its note', () => {
+    const s = eye(40, { eyeWidth: 'closed: some window is on the wrong side of the threshold at the sampling instant' });
+    s.eye.open = false;
+    const html = eyeTable(s as ReportSummary) ?? '';
+    expect(html).toContain('The eye is closed at the thresholds');
+    expect(html).not.toContain('Note: closed');
   });
 });
