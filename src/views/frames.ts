@@ -1,7 +1,7 @@
 // Animation frames: voltage against distance along the route at evenly spaced instants, one PNG each,
 // read from the route map (SimResult.routeMap). The instants cover the interval where the route is
 // active — from just before anything moves to where every point has settled to its final value — not a
-// settled tail. Every frame shares one y scale, so the frames can be played in order; segment
+// settled tail; for a repeating source (a clock, bits), the first edge until the route is still. Every frame shares one y scale, so the frames can be played in order; segment
 // boundaries and lumped parts are marked and labelled; the time is in the title.
 import type { RouteMapRecord } from '../../sim/result.js';
 import { drawLinePlot, encodePng, formatSi, padDomain, Surface, THEME, type Annotation, type Marker } from '../render/index.js';
@@ -56,6 +56,41 @@ export function activeRows(map: RouteMapRecord, tolerance = ACTIVITY_TOLERANCE):
   let last = rows - 1;
   while (last > 0 && !differs(last, rows - 1)) last--;
   return [Math.max(0, first - 1), Math.min(rows - 1, last + 1)];
+}
+
+/** Share of the run the whole route must stay still for to count as quiet between two edges (5 %). */
+export const QUIET_SHARE = 0.05;
+
+/**
+ * The rows of the first burst of activity: from activeRows' start to the first row after which the whole
+ * route stays still (every point within `tolerance` of the map's range of that row) for `quietShare` of
+ * the run — where the first edge's reflections have died out before a repeating source (a clock, bits)
+ * sends the next one, whose frames would show the same again. A route that is never quiet before its end
+ * (a single edge that settles, a clock faster than the settling) gives activeRows.
+ */
+export function firstBurstRows(map: RouteMapRecord, tolerance = ACTIVITY_TOLERANCE, quietShare = QUIET_SHARE): [number, number] {
+  const [a, b] = activeRows(map, tolerance);
+  const rows = map.values.shape[0], cols = map.values.shape[1];
+  const d = map.values.data;
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < d.length; i++) {
+    if (d[i] < lo) lo = d[i];
+    if (d[i] > hi) hi = d[i];
+  }
+  const eps = tolerance * (hi - lo);
+  const quiet = Math.max(3, Math.round(quietShare * rows));
+  if (!(eps > 0)) return [a, b];
+  const still = (r: number, ref: number) => {
+    for (let j = 0; j < cols; j++) if (Math.abs(d[r * cols + j] - d[ref * cols + j]) > eps) return false;
+    return true;
+  };
+  // from the row after the first movement, the first row that the next `quiet` rows all stay close to
+  for (let r = a + 1; r + quiet < b; r++) {
+    let k = 1;
+    while (k <= quiet && still(r + k, r)) k++;
+    if (k > quiet) return [a, r];
+  }
+  return [a, b];
 }
 
 /**
@@ -116,8 +151,8 @@ export function routeMarks(
   return { markers, annotations };
 }
 
-/** The PNG of one frame: route-map row `row` along the main path; `active` is the interval the frames cover (s). */
-function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [number, number], active: [number, number]): Buffer {
+/** The PNG of one frame: route-map row `row` along the main path; `active` is the interval the frames cover. */
+function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [number, number], active: ActiveSpan): Buffer {
   const map = pathMap(spec.routeMap);
   const cols = map.positions.length;
   const values = map.values.data.subarray(row * cols, (row + 1) * cols);
@@ -133,7 +168,7 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   drawLinePlot(surface, { x: 0, y: 0, w: surface.width, h: surface.height }, {
     // the time leads, so a long scenario title is what gets shortened
     title: `t = ${formatSi(row * map.dtRow, 's')} · ${spec.title}`,
-    subtitle: `Voltage along the ${spec.routeMap.paths.length > 1 ? `main path (to ${spec.routeMap.paths[0].receiver})` : 'route'}, driver at 0 m · frame ${index + 1} of ${spec.count}, over ${formatSi(active[0], 's')} … ${formatSi(active[1], 's')} where the route is active`,
+    subtitle: `Voltage along the ${spec.routeMap.paths.length > 1 ? `main path (to ${spec.routeMap.paths[0].receiver})` : 'route'}, driver at 0 m · frame ${index + 1} of ${spec.count}, ${spanText(active)}`,
     x: { label: 'Distance from the driver', unit: 'm', domain: end > 0 ? [0, end] : [0, 1] },
     y: { label: 'Voltage', unit: 'V', domain: yDomain },
     series: [{ name: 'voltage', values, xs: map.positions, style: { width: 2 } }],
@@ -144,11 +179,27 @@ function drawFrame(spec: FramesSpec, row: number, index: number, yDomain: [numbe
   return encodePng(surface);
 }
 
-/** `count` frames as PNG bytes, in time order, over the interval where the route is active (activeRows). */
+/**
+ * `count` frames as PNG bytes, in time order, over the interval where the route is active: its first
+ * burst (firstBurstRows) when the source repeats, else all of it (activeRows).
+ */
 export async function renderFrames(spec: FramesSpec): Promise<Buffer[]> {
-  const range = activeRows(spec.routeMap);
+  const whole = activeRows(spec.routeMap);
+  const range = firstBurstRows(spec.routeMap);
   const rows = frameRows(spec.routeMap.values.shape[0], spec.count, range);
   const yDomain = frameVoltageDomain(spec.routeMap);
-  const span: [number, number] = [range[0] * spec.routeMap.dtRow, range[1] * spec.routeMap.dtRow];
+  const span: ActiveSpan = { from: range[0] * spec.routeMap.dtRow, to: range[1] * spec.routeMap.dtRow, firstBurst: range[1] < whole[1] };
   return rows.map((row, i) => drawFrame(spec, row, i, yDomain, span));
+}
+
+/** The interval the frames cover (s), and whether it is the first burst of a repeating source. */
+interface ActiveSpan {
+  from: number;
+  to: number;
+  firstBurst: boolean;
+}
+
+function spanText(a: ActiveSpan): string {
+  const t = `${formatSi(a.from, 's')} … ${formatSi(a.to, 's')}`;
+  return a.firstBurst ? `over ${t}: the first edge until the route is still (later edges repeat it)` : `over ${t} where the route is active`;
 }

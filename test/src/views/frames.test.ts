@@ -4,7 +4,7 @@ import { PNG } from 'pngjs';
 import { describe, expect, it } from 'vitest';
 import type { RouteMapRecord } from '../../../sim/result.js';
 import { simulate } from '../../../sim/simulate.js';
-import { activeRows, FRAME_FILE_PATTERN, frameFileName, frameRows, frameVoltageDomain, renderFrames, routeMarks } from '../../../src/views/frames.js';
+import { activeRows, firstBurstRows, FRAME_FILE_PATTERN, frameFileName, frameRows, frameVoltageDomain, renderFrames, routeMarks } from '../../../src/views/frames.js';
 import { lineOf, net, part, stepSignal } from '../../support/nets.js';
 
 describe('frame instants', () => {
@@ -104,6 +104,56 @@ describe('activeRows on hand-made maps', () => {
   });
   it('a map that never changes is shown whole', () => {
     expect(activeRows(mapOf([[2, 2], [2, 2], [2, 2]]))).toEqual([0, 2]);
+  });
+});
+
+describe('firstBurstRows on hand-made maps', () => {
+  const mapOf = (rows: number[][]): RouteMapRecord => ({
+    positions: Float64Array.from(rows[0].map((_, j) => j)),
+    dtRow: 1,
+    values: ndarray(Float64Array.from(rows.flat()), [rows.length, rows[0].length]),
+    items: [],
+    paths: [],
+  });
+  const hold = (row: number[], n: number) => Array.from({ length: n }, () => row);
+  it('a repeating source: from the row before the first edge to where the route is still before the next', () => {
+    // 20 rows, a quiet stretch of 20 % = 4 rows: the first edge moves rows 2–3, still from row 3 to 9
+    const m = mapOf([[0, 0], [0, 0], [1, 0], ...hold([1, 1], 7), [0, 1], ...hold([0, 0], 7), [1, 0], [1, 1]]);
+    expect(activeRows(m)).toEqual([1, 19]);
+    expect(firstBurstRows(m, undefined, 0.2)).toEqual([1, 3]);
+  });
+  it('a pause shorter than the quiet stretch is part of the burst', () => {
+    const m = mapOf([[0, 0], [1, 0], [1, 1], [1, 1], [1, 2], ...hold([1, 2], 10), [0, 2], [0, 0]]);
+    expect(firstBurstRows(m, undefined, 0.2)).toEqual([0, 4]);
+  });
+  it('a single edge that settles, or a route never still, gives activeRows', () => {
+    const step = mapOf([[0, 0], [0, 0], [0, 0], [1, 0], [1, 1], [1, 1], [1, 1], [1, 1]]);
+    expect(firstBurstRows(step)).toEqual(activeRows(step));
+    const busy = mapOf([[0, 0], [0, 0], [1, 0], [1, 1], [0, 1], [0, 0], [1, 0], [1, 1], [0, 1], [0, 0]]);
+    expect(firstBurstRows(busy)).toEqual(activeRows(busy));
+  });
+});
+
+describe('frames of a clock on a matched line', () => {
+  // 1 V clock, period 40 ns, through 50 Ω into a 1 m, 50 Ω line (TD 5 ns) with a 50 Ω load: each edge
+  // sends a 0.5 V wave that the matched load absorbs (Pozar, Microwave Engineering, §2.3–2.4), so the
+  // route is still from ~5 ns after each edge until the next one, 20 ns later. The frames show the first
+  // edge's crossing, not five clock edges 20 ns apart that all look the same.
+  const n = net({
+    signal: { kind: 'clock', low: 0, high: 1, period: 40e-9, rise: 200e-12, fall: 200e-12, duty: 0.5, start: 0.5e-9 },
+    rs: 50,
+    route: [{ kind: 'line', name: 'trace', line: lineOf(50, 5e-9), length: 1 }],
+    receiver: [part({ r: 50 })],
+    duration: 100e-9,
+  });
+  const map = simulate(n, { routeMap: {} }).routeMap as RouteMapRecord;
+  it('cover the first edge until the wave is absorbed', () => {
+    const [a, b] = firstBurstRows(map);
+    expect(activeRows(map)[1] * map.dtRow).toBeGreaterThan(80e-9);
+    expect(a * map.dtRow).toBeLessThanOrEqual(0.5e-9);
+    // the ramp (0.5 ns to 0.75 ns) reaches the load at 5.5–5.75 ns; allow a row and the 0.5 % tolerance
+    expect(b * map.dtRow).toBeGreaterThan(5.4e-9);
+    expect(b * map.dtRow).toBeLessThan(6.2e-9);
   });
 });
 
