@@ -8,7 +8,8 @@
 // {p, q | RAIL}, and a path is a list of legs. Today's scenarios compile to a tree rooted at the
 // driver pin (a chain when there are no branch items); `from` is then the end nearer the driver.
 import { NetError, type NetProblem } from './errors.js';
-import type { LineRLGC, Net, NamedReceiver, Part, RouteItem, RunSettings, Signal } from './model.js';
+import type { CoupledLine } from './coupled/line.js';
+import type { CoupledSpec, LineRLGC, Net, NamedReceiver, Part, RouteItem, RunSettings, Signal } from './model.js';
 import { mainReceiver } from './route-tree.js';
 
 /** The far end of a part tied to its rail (the part's `rail` voltage; AC ground in the spectral solver). */
@@ -17,6 +18,8 @@ export const RAIL = -1;
 export interface CircuitNode {
   /** What the node is, for messages: "the driver pin", "receiver 'ram2'", "after 'r1'", "junction 'tee1'". */
   label: string;
+  /** The net the node belongs to: the index of its source (0 for the first net). */
+  net: number;
 }
 
 export interface LineSegment {
@@ -26,6 +29,16 @@ export interface LineSegment {
   to: number;
   line: LineRLGC;
   length: number;
+  /** Set when the segment is a conductor of a coupled section (Circuit.coupled[section]). */
+  coupling?: { section: number; conductor: number };
+}
+
+/** A coupled section: its conductors' segments (matrix order), all of one length. */
+export interface CoupledPlace {
+  name: string;
+  line: CoupledLine;
+  length: number;
+  segments: number[];
 }
 
 export type PartRole = 'series' | 'shunt' | 'receiver';
@@ -93,6 +106,8 @@ export interface Circuit {
   probes: CircuitProbe[];
   /** One per receiver reachable from a source; the main receiver's path first. */
   paths: CircuitPath[];
+  /** Coupled sections (multi-net scenarios); empty for a single net. */
+  coupled: CoupledPlace[];
   run: RunSettings;
 }
 
@@ -107,11 +122,14 @@ class Compiler {
   private readonly receiverPaths = new Map<string, CircuitPath>();
 
   constructor(net: Net) {
-    this.c = { title: net.title, nodes: [], segments: [], parts: [], sources: [], receivers: [], items: new Map(), probes: [], paths: [], run: net.run };
+    this.c = { title: net.title, nodes: [], segments: [], parts: [], sources: [], receivers: [], items: new Map(), probes: [], paths: [], coupled: [], run: net.run };
   }
 
+  /** The net the nodes being made belong to (a source index). */
+  net = 0;
+
   node(label: string): number {
-    return this.c.nodes.push({ label }) - 1;
+    return this.c.nodes.push({ label, net: this.net }) - 1;
   }
 
   part(item: string, role: PartRole, p: number, q: number, part: Part): number {
@@ -161,7 +179,7 @@ class Compiler {
     if (!/junction/.test(this.c.nodes[node].label)) this.c.nodes[node].label = `receiver '${receiver.name}'`;
     const parts = receiver.parts.map((p) => this.part(receiver.name, 'receiver', node, RAIL, p));
     this.c.receivers.push({ name: receiver.name, node, parts });
-    this.receiverPaths.set(receiver.name, { source: 0, receiver: receiver.name, nodes: walk.nodes, legs: walk.legs });
+    this.receiverPaths.set(receiver.name, { source: this.net, receiver: receiver.name, nodes: walk.nodes, legs: walk.legs });
   }
 
   probes(net: Net): void {
@@ -174,7 +192,11 @@ class Compiler {
   }
 
   private probePlace(p: Net['probes'][number], receiverNode: Map<string, number>, path: string): ProbePlace | undefined {
-    if (p.at === 'driver') return { kind: 'node', node: this.c.sources[0].node };
+    if (p.at === 'driver') {
+      const source = p.net === undefined ? this.c.sources[0] : this.c.sources.find((s) => s.name === p.net);
+      if (!source) this.problems.push({ path, message: `no net named '${p.net}' (nets: ${this.c.sources.map((s) => s.name).join(', ')})` });
+      return source ? { kind: 'node', node: source.node } : undefined;
+    }
     if (p.at === 'receiver') {
       const name = p.receiver ?? this.c.paths[0].receiver;
       const node = receiverNode.get(name);
@@ -219,6 +241,53 @@ class Compiler {
     const main = this.receiverPaths.get(mainName)!;
     this.c.paths = [main, ...[...this.receiverPaths.values()].filter((p) => p !== main)];
   }
+
+  /** A net's driver pin, source and route (the first net has source 0). */
+  net_(name: string, driver: Net['driver'], route: readonly RouteItem[], receiver: NamedReceiver, where: string): void {
+    this.net = this.c.sources.length;
+    const pin = this.node(this.net === 0 ? 'the driver pin' : `the driver pin of '${name}'`);
+    this.c.sources.push({ name, node: pin, resistance: driver.resistance, signal: driver.signal });
+    this.route(route, pin, { nodes: [pin], legs: [] }, receiver, where);
+  }
+
+  /**
+   * Coupled sections: each conductor a line item (of any net) of the section's length, no segment in
+   * two sections. The segment keeps its self terms as its `line`; the kernel uses the matrices.
+   */
+  coupled(specs: readonly CoupledSpec[]): void {
+    specs.forEach((spec, n) => {
+      const path = `coupled.${spec.name}`;
+      const segments: number[] = [];
+      spec.conductors.forEach((item, j) => {
+        const place = this.c.items.get(item);
+        if (!place || place.kind !== 'line') {
+          this.problems.push({ path: `${path}.conductors[${j}]`, message: place ? `'${item}' is a ${place.kind} item, not a line` : `no line item named '${item}'` });
+          return;
+        }
+        const seg = this.c.segments[place.segment];
+        if (seg.coupling) {
+          this.problems.push({ path: `${path}.conductors[${j}]`, message: `'${item}' is already a conductor of coupled section '${this.c.coupled[seg.coupling.section]?.name ?? specs[seg.coupling.section].name}' (a segment is coupled once)` });
+          return;
+        }
+        seg.coupling = { section: n, conductor: j };
+        if (j < spec.line.k) seg.line = selfLine(spec.line, j);
+        segments.push(place.segment);
+      });
+      for (const key of ['r', 'g'] as const) {
+        const m = spec.line[key];
+        const k = spec.line.k;
+        if (m && m.some((x, e) => x !== 0 && e % (k + 1) !== 0)) {
+          this.problems.push({ path: `${path}.${key}`, message: `off-diagonal ${key.toUpperCase()} terms (a shared return's ${key === 'r' ? 'resistance' : 'leakage between conductors'}) are not supported in runs yet; give ${key.toUpperCase()} per conductor on the diagonal` });
+        }
+      }
+      if (spec.conductors.length !== spec.line.k) this.problems.push({ path: `${path}.conductors`, message: `${spec.conductors.length} conductors for ${spec.line.k}×${spec.line.k} matrices` });
+      const lengths = segments.map((s) => this.c.segments[s].length);
+      if (lengths.some((x) => Math.abs(x - lengths[0]) > 1e-9 * Math.max(lengths[0], 1e-12))) {
+        this.problems.push({ path, message: `the conductors must have the same length: ${segments.map((s) => `'${this.c.segments[s].name}' ${this.c.segments[s].length} m`).join(', ')}` });
+      }
+      this.c.coupled.push({ name: spec.name, line: spec.line, length: lengths[0] ?? 0, segments });
+    });
+  }
 }
 
 /**
@@ -228,13 +297,21 @@ class Compiler {
  */
 export function compileNet(net: Net): Circuit {
   const k = new Compiler(net);
-  const pin = k.node('the driver pin');
-  k.c.sources.push({ name: 'driver', node: pin, resistance: net.driver.resistance, signal: net.driver.signal });
   const main = mainReceiver(net);
-  k.route(net.route, pin, { nodes: [pin], legs: [] }, main, 'route');
+  k.net_(net.netName ?? 'driver', net.driver, net.route, main, 'route');
+  for (const side of net.nets ?? []) {
+    k.net_(side.name, side.driver, side.route, { name: side.receiverName ?? side.name, parts: side.receiver }, `nets.${side.name}.route`);
+  }
   k.paths(main.name);
+  k.coupled(net.coupled ?? []);
   k.probes(net);
   return k.finish();
+}
+
+/** A conductor's self terms (L_ii, C_ii, R_ii, G_ii): what it would be with its neighbours' coupling ignored. */
+export function selfLine(line: CoupledLine, j: number): LineRLGC {
+  const d = j * (line.k + 1);
+  return { r: line.r?.[d] ?? 0, l: line.l[d], g: line.g?.[d] ?? 0, c: line.c[d] };
 }
 
 /** Total one-way delay along a path (s). */

@@ -1,7 +1,8 @@
 // Chooses one global time step and an integer cell count per line segment.
 // Leapfrog on the telegrapher equations is stable for Courant number v·Δt/Δz ≤ 1 and, on a lossless
 // line, exact (dispersion-free) at Courant = 1 (Taflove & Hagness, Computational Electrodynamics, ch. 2).
-import { longestPathDelay, type Circuit } from './circuit.js';
+import { longestPathDelay, type Circuit, type LineSegment } from './circuit.js';
+import { fastestVelocity } from './coupled/modes.js';
 import { NetError } from './errors.js';
 import type { LineRLGC, Net } from './model.js';
 import type { Discretization, DtRule, SegmentPlan } from './result.js';
@@ -14,6 +15,25 @@ export function lineDelayPerLength(line: LineRLGC): number {
 
 export function lineZ0(line: LineRLGC): number {
   return Math.sqrt(line.l / line.c);
+}
+
+/**
+ * A segment's delay for the time step: length·√(L′C′), or for a conductor of a coupled section the
+ * section's fastest mode (Courant must hold for every mode, and the conductors' self velocities
+ * 1/√(L_ii·C_ii) can be slower than the fastest mode's: Paul, Analysis of Multiconductor Transmission
+ * Lines, FDTD chapter).
+ */
+export function segmentDelay(c: Circuit, seg: LineSegment): number {
+  if (!seg.coupling) return seg.length * lineDelayPerLength(seg.line);
+  const line = c.coupled[seg.coupling.section].line;
+  const k = line.k;
+  // without coupling the modes are the conductors themselves: the fastest one's delay, computed as for a single line
+  if (line.l.every((x, e) => x === 0 || e % (k + 1) === 0) && line.c.every((x, e) => x === 0 || e % (k + 1) === 0)) {
+    let td = Infinity;
+    for (let j = 0; j < k; j++) td = Math.min(td, seg.length * Math.sqrt(line.l[j * (k + 1)] * line.c[j * (k + 1)]));
+    return td;
+  }
+  return seg.length / fastestVelocity(line);
 }
 
 /** The longest one-way delay from the driver pin to a receiver (s): the whole route for a chain. */
@@ -71,7 +91,7 @@ export function discretize(c: Circuit): Discretization {
   // Each segment needs at least ceil(TD/dtEdge) cells so that a cell's delay resolves the edge;
   // Δt may not exceed any cell's delay (Courant ≤ 1), so Δt = min over segments of TD / that count.
   for (const seg of c.segments) {
-    const td = seg.length * lineDelayPerLength(seg.line);
+    const td = segmentDelay(c, seg);
     if (td <= 0) continue;
     const minCells = Number.isFinite(dtEdge) ? Math.max(1, Math.ceil(td / dtEdge - 1e-9)) : 1;
     const candidate = td / minCells;
@@ -88,7 +108,7 @@ export function discretize(c: Circuit): Discretization {
   let cells = 0;
   let merged = 0;
   for (const seg of c.segments) {
-    const td = seg.length * lineDelayPerLength(seg.line);
+    const td = segmentDelay(c, seg);
     // As many cells as Courant ≤ 1 allows: the Courant number is then as close to 1 as it can be.
     const n = td > 0 ? Math.max(1, Math.floor(td / dt + 1e-9)) : 0; // a zero-length line is a plain wire
     segments.push({
@@ -99,6 +119,7 @@ export function discretize(c: Circuit): Discretization {
       delay: td,
       z0: lineZ0(seg.line),
       courant: td > 0 ? (n * dt) / td : 0,
+      ...(seg.coupling ? { coupled: c.coupled[seg.coupling.section].name } : {}),
     });
     cells += n;
     if (n === 0) merged++;

@@ -20,7 +20,7 @@ export const EXTERNAL = -1;
 /** A lumped branch from slot `p` to slot `q` (either may be EXTERNAL), elements R, L, C in series. */
 export interface LumpedBranch {
   item: string;
-  role: 'driver' | 'series' | 'shunt' | 'receiver' | 'dielectric';
+  role: 'driver' | 'series' | 'shunt' | 'receiver' | 'dielectric' | 'coupling';
   p: number;
   q: number;
   part: Part;
@@ -40,6 +40,8 @@ export interface SegmentSpan {
   last: number;
   cellLength: number;
   line: LineRLGC;
+  /** Set for a conductor of a coupled section (Circuit.coupled[section]): the coupled kernel advances its cells. */
+  coupling?: { section: number; conductor: number };
 }
 
 /** One cell current meeting an end node: +1 flows into the node (a segment's last cell), −1 out of it. */
@@ -136,6 +138,7 @@ export function buildLadder(c: Circuit, plan: Discretization): Ladder {
   };
   if (ladder.nodes !== plan.nodes) throw new Error(`internal: ladder has ${ladder.nodes} nodes, plan expected ${plan.nodes}`);
   placeSegments(ladder, c, plan, num.bases);
+  placeCouplings(ladder, c);
   setPositions(ladder, c);
   for (const p of c.parts) {
     const role = p.role;
@@ -152,15 +155,18 @@ function placeSegments(ladder: Ladder, c: Circuit, plan: Discretization, bases: 
     const first = ladder.nodeSlot[seg.from];
     const last = ladder.nodeSlot[seg.to];
     const base = cells > 0 ? bases[index] : first;
-    ladder.segments.push({ name: seg.name, index, base, cells, first, last, cellLength: dz, line: seg.line });
+    ladder.segments.push({ name: seg.name, index, base, cells, first, last, cellLength: dz, line: seg.line, ...(seg.coupling ? { coupling: seg.coupling } : {}) });
     if (cells === 0) return;
     const halfC = (seg.line.c * dz) / 2;
     const halfG = (seg.line.g * dz) / 2;
+    // A coupled conductor's end nodes carry its capacitance to the return (the Maxwell row sum); the
+    // mutual part sits in coupling capacitors between the section's end nodes (placeCouplings).
+    const endC = seg.coupling ? (rowSum(c.coupled[seg.coupling.section].line, seg.coupling.conductor) * dz) / 2 : halfC;
     for (let k = 0; k < cells; k++) {
       const left = k === 0 ? first : base + k;
       const right = k === cells - 1 ? last : base + k + 1;
-      ladder.nodeC[left] += halfC;
-      ladder.nodeC[right] += halfC;
+      ladder.nodeC[left] += left === first ? endC : halfC;
+      ladder.nodeC[right] += right === last ? endC : halfC;
       ladder.nodeG[left] += halfG;
       ladder.nodeG[right] += halfG;
     }
@@ -172,6 +178,36 @@ function placeSegments(ladder: Ladder, c: Circuit, plan: Discretization, bases: 
       const cap = (t.value * dz) / 2;
       for (const end of [first, last]) {
         ladder.lumped.push({ item: seg.name, role: 'dielectric', p: end, q: EXTERNAL, part: { r: t.tau / cap, l: 0, c: cap, rail: 0 }, source: -1 });
+      }
+    }
+  });
+}
+
+/** Row sum of a Maxwell C: conductor j's capacitance to the return (F/m). */
+function rowSum(line: { k: number; c: Float64Array }, j: number): number {
+  let sum = 0;
+  for (let e = 0; e < line.k; e++) sum += line.c[j * line.k + e];
+  return sum;
+}
+
+/**
+ * The half cell at each end of a coupled section as the capacitors one would draw: C_gi·Δz/2 to the
+ * return on each end node (placed with the segment) and C_mij·Δz/2 = −C_ij·Δz/2 between the end nodes
+ * of conductors i and j. Charge q_i = Σ_j C_ij·V_j is the same either way (Paul, the Maxwell matrix and
+ * its mutual-capacitance form); a capacitor part's trapezoidal companion is the centred node equation.
+ */
+function placeCouplings(ladder: Ladder, c: Circuit): void {
+  c.coupled.forEach((sec) => {
+    const spans = sec.segments.map((s) => ladder.segments[s]);
+    if (spans.length !== sec.line.k || spans[0].cells === 0) return;
+    const k = sec.line.k;
+    for (let i = 0; i < k; i++) {
+      for (let j = i + 1; j < k; j++) {
+        const cm = (-sec.line.c[i * k + j] * spans[i].cellLength) / 2;
+        if (!(cm > 0)) continue;
+        for (const end of ['first', 'last'] as const) {
+          ladder.lumped.push({ item: sec.name, role: 'coupling', p: spans[i][end], q: spans[j][end], part: { r: 0, l: 0, c: cm, rail: 0 }, source: -1 });
+        }
       }
     }
   });

@@ -58,6 +58,18 @@ export function lumpedSizes(c: Circuit, plan: Discretization): { parts: number; 
       touched[s.from] = touched[s.to] = 1;
     }
   });
+  // a coupled section's ends: coupling capacitors between its conductors' end nodes (ladder.ts)
+  for (const sec of c.coupled) {
+    const segs = sec.segments.map((k) => c.segments[k]);
+    if (!segs.length || plan.segments[sec.segments[0]].cells === 0) continue;
+    for (let a = 1; a < segs.length; a++) {
+      for (const end of ['from', 'to'] as const) {
+        touched[segs[0][end]] = touched[segs[a][end]] = 1;
+        join(segs[0][end], segs[a][end]);
+      }
+    }
+    dielectric += segs.length * (segs.length - 1);
+  }
   for (const p of c.parts) {
     touched[p.p] = 1;
     if (p.q !== RAIL) {

@@ -10,6 +10,7 @@
 // of the cell currents in their incidence lists (Kirchhoff's current law).
 // A segment with frequency-dependent loss also carries one state per R‖L section in every cell and
 // one per R–C dielectric branch on every interior node (see lossy-segment.ts).
+import { advanceCoupledSlots, buildCoupledSlots, type CoupledSlots } from './coupled/slots.js';
 import type { DcState } from './dc.js';
 import type { Ladder } from './ladder.js';
 import { advanceLossySegment, buildLossySegments, type LossySegments } from './lossy-segment.js';
@@ -38,6 +39,8 @@ export interface LineKernel {
   joinSign: Float64Array;
   /** Segments with auxiliary loss states; they are not in the plain segment arrays above. */
   lossy: LossySegments;
+  /** Coupled sections: their conductors' segments are not in the arrays above either (coupled/slots.ts). */
+  coupled: CoupledSlots[];
 }
 
 function nodeCoefficients(c: number, g: number, dt: number): [number, number] {
@@ -47,7 +50,7 @@ function nodeCoefficients(c: number, g: number, dt: number): [number, number] {
 
 export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpedNode: Uint8Array): LineKernel {
   const m = ladder.slots;
-  const lines = ladder.segments.filter((s) => s.cells > 0);
+  const lines = ladder.segments.filter((s) => s.cells > 0 && !s.coupling);
   const hasAux = (s: (typeof lines)[number]) => (s.line.series?.length ?? 0) + (s.line.shunt?.length ?? 0) > 0;
   const spans = lines.filter((s) => !hasAux(s));
   const joinList = [...ladder.ends.keys()].filter((node) => !isLumpedNode[node]).sort((a, b) => a - b);
@@ -69,6 +72,7 @@ export function buildLineKernel(ladder: Ladder, dt: number, dc: DcState, isLumpe
     joinCell: Int32Array.from(incidence.flat(), (e) => e.cell),
     joinSign: Float64Array.from(incidence.flat(), (e) => e.sign),
     lossy: buildLossySegments(lines.filter(hasAux), dt, dc),
+    coupled: ladder.circuit.coupled.filter((c) => ladder.segments[c.segments[0]].cells > 0).map((c) => buildCoupledSlots(ladder, c.name, c.segments, c.line, dt)),
   };
   spans.forEach((s, n) => {
     // every cell of the segment has the same L′ΔZ and R′ΔZ
@@ -128,5 +132,6 @@ export function advanceLineCells(k: LineKernel): void {
     advanceSegment(k.v, k.i, k.segStart[s], k.segEnd[s], k.segA[s], k.segB[s], k.segC[s], k.segD[s]);
   }
   for (let s = 0; s < k.lossy.count; s++) advanceLossySegment(k.lossy, s, k.v, k.i);
+  for (let s = 0; s < k.coupled.length; s++) advanceCoupledSlots(k.coupled[s], k.v, k.i);
   advanceJoins(k);
 }

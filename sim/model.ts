@@ -1,6 +1,7 @@
 // The validated net the engine works on: every quantity is a plain number in SI base units
 // (seconds, volts, ohms, henries, farads, metres, siemens). The application layer (src/scenario)
 // turns a scenario file into this shape; the engine never sees strings with units.
+import type { CoupledLine } from './coupled/line.js';
 import type { FreqLine } from './lines/freq-model.js';
 
 /** A first-order auxiliary term of a line's per-unit-length model, one state per cell. */
@@ -70,7 +71,8 @@ export interface NamedReceiver {
 export const MAIN_RECEIVER = 'receiver';
 
 export type ProbeSpec =
-  | { name: string; at: 'driver' }
+  /** At a driver pin: `net` names a further net's (absent = the first net's). */
+  | { name: string; at: 'driver'; net?: string }
   /** At a receiver's node: `receiver` names it (absent = the main receiver at the end of `route`). */
   | { name: string; at: 'receiver'; receiver?: string }
   | { name: string; at: 'line'; item: string; position: number }
@@ -100,4 +102,30 @@ export interface Net {
   receiverName?: string;
   probes: ProbeSpec[];
   run: RunSettings;
+  /** Multi-net scenarios: the first net's name (the fields above are that net). */
+  netName?: string;
+  /** Further nets, each with its own driver, route and receivers; item and receiver names are unique across all nets. */
+  nets?: SideNet[];
+  /** Coupled sections joining line items of one or several nets. */
+  coupled?: CoupledSpec[];
+}
+
+/** A further net of a multi-net scenario (a victim with a quiet driver, another aggressor). */
+export interface SideNet {
+  name: string;
+  driver: { signal: Signal; resistance: number };
+  route: RouteItem[];
+  receiver: Part[];
+  receiverName?: string;
+}
+
+/**
+ * A coupled section: the line items running alongside (one per conductor, in the matrices' order; all
+ * the same length) and their per-unit-length matrices. Each item's own `line` holds the conductor's self
+ * terms (L_ii, C_ii, R_ii, G_ii), which views and delays use; the run uses the matrices.
+ */
+export interface CoupledSpec {
+  name: string;
+  conductors: string[];
+  line: CoupledLine;
 }

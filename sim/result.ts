@@ -11,8 +11,10 @@ export interface SegmentPlan {
   delay: number;
   /** Characteristic impedance √(L'/C') at high frequency (ohm). */
   z0: number;
-  /** Courant number v·Δt/Δz; ≤ 1 for stability, 1 is dispersion-free on a lossless line. */
+  /** Courant number v·Δt/Δz; ≤ 1 for stability, 1 is dispersion-free on a lossless line. For a coupled conductor: the fastest mode's. */
   courant: number;
+  /** The coupled section the segment is a conductor of; `delay` is then the fastest mode's. */
+  coupled?: string;
   /** For a line with frequency-dependent loss: how its Z′(jω), Y′(jω) were realised in the time domain. */
   loss?: LossRealisation;
 }

@@ -167,6 +167,9 @@ function symbolic(n: number, pairs: [number, number][]): Omit<Structure, 'group'
 
 /** The circuit's nodal system at any frequency, for source `source` driven by 1 V. */
 export function circuitEvaluator(c: Circuit, source = 0): CircuitEvaluator {
+  if (c.coupled.length) {
+    throw new NetError([{ path: `coupled.${c.coupled[0].name}`, message: 'the spectral solver (cross-check, S-parameters) does not handle coupled sections yet; the time-domain run does' }]);
+  }
   const g = groupNodes(c, source);
   const st: Structure = { ...g, ...symbolic(g.n, couplings(c, g)) };
   const n = st.n;

@@ -25,6 +25,7 @@ function kernel(v: number[], i: number[], a: number, b: number, c: number, d: nu
     joinCell: Int32Array.from([v.length - 2]),
     joinSign: Float64Array.from([1]),
     lossy: noLossySegments(),
+    coupled: [],
   };
 }
 
