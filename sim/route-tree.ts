@@ -7,6 +7,21 @@ export function mainReceiver(net: Net): NamedReceiver {
   return { name: net.receiverName ?? MAIN_RECEIVER, parts: net.receiver };
 }
 
+/** Every net's route: the first net's, then the further nets' (multi-net scenarios). */
+export function netRoutes(net: Net): RouteItem[][] {
+  return [net.route, ...(net.nets ?? []).map((n) => n.route)];
+}
+
+/** Every route item of every net (allItems of each route, the first net first). */
+export function netItems(net: Net): RouteItem[] {
+  return netRoutes(net).flatMap((r) => allItems(r));
+}
+
+/** True when the scenario has several nets. */
+export function isMultiNet(net: Net): boolean {
+  return (net.nets?.length ?? 0) > 0;
+}
+
 /** True when the route has at least one branch item (anywhere). */
 export function isBranched(net: Net): boolean {
   return net.route.some((it) => it.kind === 'branch');
@@ -31,6 +46,7 @@ export function allItems(route: readonly RouteItem[]): RouteItem[] {
  */
 export function allReceivers(net: Net): NamedReceiver[] {
   const out: NamedReceiver[] = [mainReceiver(net)];
+  const side = (net.nets ?? []).flatMap((n) => allReceivers({ ...net, nets: undefined, route: n.route, receiver: n.receiver, receiverName: n.receiverName ?? n.name }));
   const walk = (items: readonly RouteItem[]) => {
     for (const it of items) {
       if (it.kind !== 'branch') continue;
@@ -41,7 +57,7 @@ export function allReceivers(net: Net): NamedReceiver[] {
     }
   };
   walk(net.route);
-  return out;
+  return [...out, ...side];
 }
 
 /** The route tree with every line replaced by `f(line, item)` (items and branches copied, the rest shared). */

@@ -12,7 +12,7 @@ import type { Net } from '../../sim/model.js';
 import { probeTraces, type Discretization, type ProbeRecord, type SegmentPlan } from '../../sim/result.js';
 import { probeStats, type CrossingLevel, type ProbeStats } from './crossing.js';
 import { crossingLevels, netSettledLevels } from './net-levels.js';
-import { allItems } from '../../sim/route-tree.js';
+import { netItems } from '../../sim/route-tree.js';
 import { dtReasonText } from '../engine-text.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 
@@ -104,7 +104,7 @@ export function buildSummary(input: SummaryInput): Summary {
 
 /** The plan's segments with the Z0 figures of their lines (see SummarySegment), keys in a fixed order. */
 function labelledSegments(segments: readonly SegmentPlan[], net: Net): SummarySegment[] {
-  const lines = new Map(allItems(net.route).flatMap((it) => (it.kind === 'line' ? [[it.name, it.line] as const] : [])));
+  const lines = new Map(netItems(net).flatMap((it) => (it.kind === 'line' ? [[it.name, it.line] as const] : [])));
   return segments.map((seg) => {
     const line = lines.get(seg.name);
     if (!line) throw new Error(`summary: no line '${seg.name}' in the net`);

@@ -7,7 +7,9 @@
 //   { "name": "via1",   "shunt": [ { "c": "0.5pF" } ] }
 //   { "name": "tee1",   "branch": { "route": [ ... ], "receiver": { "name": "ram2", "parts": [ ... ] } } }
 //   { "name": "hub",    "branch": [ { "route": [...], "receiver": {...} }, { "route": [...], "receiver": {...} } ] }
+import { selfLine } from '../../sim/circuit.js';
 import type { Branch, LineRLGC, NamedReceiver, Part, RouteItem } from '../../sim/model.js';
+import type { CoupledRead } from './coupled.js';
 import { MAIN_RECEIVER } from '../../sim/model.js';
 import { NON_NEGATIVE } from '../units.js';
 import { readLine } from './lines.js';
@@ -25,6 +27,8 @@ export const BRANCH_KEYS = ['route', 'receiver'] as const;
 export interface PlaceInfo {
   kind: 'line' | 'series' | 'shunt' | 'branch' | 'receiver';
   path: string;
+  /** For a coupled line item: the section it names. */
+  coupled?: string;
   /** Line length (m); undefined for the rest, or when the length was bad. */
   length?: number;
   /** For a receiver: the name the engine knows it by. */
@@ -36,6 +40,8 @@ export interface RouteContext {
   lines: Map<string, LineRLGC | undefined>;
   /** Item and receiver names share one namespace (probes name both). */
   places: Map<string, PlaceInfo>;
+  /** Coupled sections by name (undefined: a bad one, already reported). */
+  coupled?: Map<string, CoupledRead | undefined>;
 }
 
 interface ItemForm {
@@ -43,8 +49,9 @@ interface ItemForm {
   read(r: Reader, o: Obj, name: string, ctx: RouteContext, info: PlaceInfo): RouteItem | undefined;
 }
 
-export const ITEM_FORMS: Readonly<Record<'line' | 'series' | 'shunt' | 'branch', ItemForm>> = {
+export const ITEM_FORMS: Readonly<Record<'line' | 'coupled' | 'series' | 'shunt' | 'branch', ItemForm>> = {
   line: { keys: ['name', 'line', 'length'], read: readLineItem },
+  coupled: { keys: ['name', 'coupled', 'length'], read: readCoupledItem },
   series: {
     keys: ['name', 'series'],
     read: (r, o, name) => {
@@ -97,7 +104,7 @@ function readItem(r: Reader, node: SrcNode, path: string, ctx: RouteContext, at?
   }
   const kind = kinds[0];
   const keysOk = o.checkKeys(ITEM_FORMS[kind].keys, allKeys);
-  const info: PlaceInfo = { kind, path };
+  const info: PlaceInfo = { kind: kind === 'coupled' ? 'line' : kind, path };
   const name = readName(r, o, path, ctx, info, 'an item name like "trace1"');
   const item = ITEM_FORMS[kind].read(r, o, name ?? path, ctx, info);
   return keysOk && name !== undefined ? item : undefined;
@@ -157,6 +164,35 @@ function readLineItem(r: Reader, o: Obj, name: string, ctx: RouteContext, info: 
   info.length = length;
   if (!ok || line === undefined || length === undefined) return undefined;
   return { kind: 'line', name, line, length };
+}
+
+/**
+ * A conductor of a coupled section: {"name": "clk_run", "coupled": "bus", "length": "40mm"}. Its line is
+ * the conductor's self terms (L_ii, C_ii, R_ii, G_ii); the run uses the section's matrices.
+ */
+function readCoupledItem(r: Reader, o: Obj, name: string, ctx: RouteContext, info: PlaceInfo): RouteItem | undefined {
+  const length = o.quantity('length', { dim: 'length', range: { min: 0, minExclusive: true }, example: '40mm' });
+  info.length = length;
+  const ref = o.string('coupled', 'the name of a section in "coupled"');
+  if (ref === undefined) return undefined;
+  info.coupled = ref;
+  const sections: Map<string, CoupledRead | undefined> = ctx.coupled ?? new Map();
+  if (!sections.has(ref)) {
+    const names = [...sections.keys()];
+    const guess = closest(ref, names);
+    return r.fail(
+      o.keyPath('coupled'),
+      o.get('coupled'),
+      names.length ? `the name of a section in "coupled" (${names.map((n) => `"${n}"`).join(', ')})${guess ? ` — did you mean "${guess}"?` : ''}` : 'the name of a section in "coupled" (this file has no "coupled" key)',
+      o.pos,
+    );
+  }
+  const sec = sections.get(ref);
+  if (!sec) return undefined; // reported under coupled.<ref>
+  const j = sec.spec.conductors.indexOf(name);
+  if (j < 0) return r.fail(o.has('name') ? o.keyPath('name') : o.path, o.get('name') ?? o.node, `one of the conductors of "${ref}" (${sec.spec.conductors.map((c) => `"${c}"`).join(', ')}): list "${name}" in ${sec.path}.conductors`, o.pos);
+  if (length === undefined) return undefined;
+  return { kind: 'line', name, line: selfLine(sec.spec.line, j), length };
 }
 
 /** "branch": one BRANCH or a non-empty list of them (a star). */

@@ -10,13 +10,18 @@ import { readLine } from './lines.js';
 import { RESERVED_NAMES, readReceiver, readRouteList, type PlaceInfo, type RouteContext } from './route.js';
 import { readSignal } from './signals.js';
 import { readVerification, type CheckedNet } from './checks.js';
+import { readCoupledSections, type CoupledRead } from './coupled.js';
+import type { SideNet } from '../../sim/model.js';
 import { Obj, Reader } from './read.js';
 import { closest, joinKey, Problems, type Pos } from './problems.js';
 import { toPlain, type SrcNode } from './parse.js';
 
-export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'levels', 'thresholds', 'checks'] as const;
-export const DRIVER_KEYS = ['signal', 'resistance'] as const;
-export const PROBE_KEYS = ['name', 'at', 'position', 'side', 'thresholds'] as const;
+export const TOP_KEYS = ['title', 'description', 'driver', 'lines', 'route', 'receiver', 'probes', 'run', 'levels', 'thresholds', 'checks', 'nets', 'coupled'] as const;
+/** Top-level keys of a multi-net scenario (each net has its own driver, route and receiver). */
+export const MULTI_NET_TOP_KEYS = ['title', 'description', 'lines', 'nets', 'coupled', 'probes', 'run', 'levels', 'thresholds', 'checks'] as const;
+export const NET_KEYS = ['driver', 'route', 'receiver'] as const;
+export const DRIVER_KEYS = ['signal', 'level', 'resistance'] as const;
+export const PROBE_KEYS = ['name', 'at', 'net', 'position', 'side', 'thresholds'] as const;
 export const RUN_KEYS = ['duration', 'cellsPerRise', 'sample'] as const;
 export { ITEM_FORMS, ITEM_KINDS, RECEIVER_KEYS, BRANCH_KEYS, RESERVED_NAMES } from './route.js';
 
@@ -56,30 +61,39 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   const before = problems.count;
   const top = r.object(root, '', 'a scenario object with "driver", "route", "receiver", "probes" ... (see docs/scenario-format.md)', { line: 1, col: 1 });
   if (!top) return undefined;
-  top.checkKeys(TOP_KEYS);
+  const multi = top.has('nets');
+  top.checkKeys(multi ? MULTI_NET_TOP_KEYS : TOP_KEYS, TOP_KEYS);
 
   const title = top.has('title') ? top.string('title', 'a title text like "3.3 V clock, unterminated"') : baseName(problems.file);
   const description = top.has('description') ? top.string('description', 'a description text') : undefined;
 
-  const driver = readDriver(r, top);
-  const ctx: RouteContext = { lines: readLines(r, top), places: new Map() };
-  const route = readRoute(r, top, ctx);
-  const receiver = readMainReceiver(r, top, ctx);
-  const probes = readProbes(r, top, ctx.places, route && receiver ? allReceivers({ route, receiver: receiver.parts, receiverName: receiver.name } as Net) : undefined);
+  const ctx: RouteContext = { lines: readLines(r, top), places: new Map(), coupled: readCoupledSections(r, top) };
+  const nets = multi ? readNets(r, top, ctx) : readSingleNet(r, top, ctx);
+  if (nets) checkConductors(r, ctx);
+  const receivers = nets?.flatMap((n) => allReceivers({ route: n.route, receiver: n.receiver.parts, receiverName: n.receiver.name } as Net));
+  const netNames = multi && top.get('nets')?.type === 'map' ? (top.get('nets') as { entries: { key: string }[] }).entries.map((e) => e.key) : undefined;
+  const probes = readProbes(r, top, ctx.places, receivers, netNames);
   const run = readRun(r, top);
   // Checks and logic thresholds (checks.ts): extra fields on the Net that the engine ignores.
   const verification = readVerification(r, top, probes?.map((p) => p.name));
 
   if (problems.count > before) return undefined;
+  const [first, ...others] = nets!;
   const net: CheckedNet = {
     title: title!,
-    driver: driver!,
-    route: route!,
-    receiver: receiver!.parts,
+    driver: first.driver,
+    route: first.route,
+    receiver: first.receiver.parts,
     probes: probes!,
     run: run!,
   };
-  if (receiver!.name !== MAIN_RECEIVER) net.receiverName = receiver!.name;
+  if (first.receiver.name !== MAIN_RECEIVER) net.receiverName = first.receiver.name;
+  if (multi) {
+    net.netName = first.name;
+    net.nets = others.map((n): SideNet => ({ name: n.name, driver: n.driver, route: n.route, receiver: n.receiver.parts, receiverName: n.receiver.name }));
+  }
+  const sections = [...ctx.coupled!.values()].filter((c): c is CoupledRead => c !== undefined);
+  if (sections.length) net.coupled = sections.map((c) => c.spec);
   if (description !== undefined) net.description = description;
   if (verification?.thresholds) net.thresholds = verification.thresholds;
   if (verification?.probeThresholds) net.probeThresholds = verification.probeThresholds;
@@ -88,13 +102,96 @@ export function validateScenario(root: SrcNode, problems: Problems): Net | undef
   return net;
 }
 
-function readDriver(r: Reader, top: Obj): Net['driver'] | undefined {
-  if (!top.has('driver')) return top.missing('driver', 'a driver like {"signal": {"kind": "step", ...}, "resistance": "25ohm"}');
-  const o = r.object(top.get('driver'), 'driver', 'a driver like {"signal": {"kind": "step", ...}, "resistance": "25ohm"}', top.pos);
+interface NetRead {
+  name: string;
+  driver: Net['driver'];
+  route: RouteItem[];
+  receiver: NamedReceiver;
+}
+
+/** A v1/branched scenario: the one net at the top level. */
+function readSingleNet(r: Reader, top: Obj, ctx: RouteContext): NetRead[] | undefined {
+  const driver = readDriver(r, top, 'driver');
+  const route = readRoute(r, top, ctx);
+  const receiver = readMainReceiver(r, top, ctx);
+  if (!driver || !route || !receiver) return undefined;
+  return [{ name: 'driver', driver, route, receiver }];
+}
+
+/**
+ * "nets": { NAME: { driver, route, receiver }, … } — each net as a one-net scenario's top level; a
+ * net's main receiver is named after the net unless it has a name of its own.
+ */
+function readNets(r: Reader, top: Obj, ctx: RouteContext): NetRead[] | undefined {
+  const what = 'named nets like {"clk": {"driver": {...}, "route": [...], "receiver": {...}}, "rst": {...}}';
+  const o = r.object(top.get('nets'), 'nets', what, top.pos);
+  if (!o) return undefined;
+  if (o.keys().length === 0) return r.fail('nets', o.node, `at least one net: ${what}`, top.pos);
+  const out: NetRead[] = [];
+  let ok = true;
+  for (const name of o.keys()) {
+    const path = o.keyPath(name);
+    const n = r.object(o.get(name), path, 'a net like {"driver": {...}, "route": [...], "receiver": {...}}', o.pos);
+    if (!n) {
+      ok = false;
+      continue;
+    }
+    n.checkKeys(NET_KEYS);
+    if ((RESERVED_NAMES as readonly string[]).includes(name) || ctx.places.has(name)) {
+      r.fail(path, n.node, `a net name other than "driver", "receiver" and the names of items and receivers ("${name}")`, o.pos);
+      ok = false;
+    }
+    const driver = readDriver(r, n, joinKey(path, 'driver'));
+    const route = n.has('route') ? readRouteList(r, n.get('route'), joinKey(path, 'route'), ctx, n.pos, 'a list of route items (may be empty)') : n.missing('route', 'a list of route items (may be empty) like [{"name": "trace1", "line": "trace", "length": "3in"}]');
+    let receiver: NamedReceiver | undefined = { name, parts: [] };
+    if (n.has('receiver')) {
+      receiver = readReceiver(r, n.get('receiver'), joinKey(path, 'receiver'), ctx, true, n.pos);
+      if (receiver?.name === MAIN_RECEIVER) {
+        const info = ctx.places.get(MAIN_RECEIVER);
+        ctx.places.delete(MAIN_RECEIVER);
+        receiver = { name, parts: receiver.parts };
+        if (info) info.receiver = name;
+        if (ctx.places.has(name)) {
+          r.fail(path, n.node, `a net name that no item or receiver has ("${name}" names its receiver; it is also ${ctx.places.get(name)!.path}'s name)`, o.pos);
+          receiver = undefined;
+        } else if (info) ctx.places.set(name, info);
+      }
+    } else if (ctx.places.has(name)) {
+      r.fail(path, n.node, `a net name that no item or receiver has ("${name}" names its receiver; it is also ${ctx.places.get(name)!.path}'s name)`, o.pos);
+      receiver = undefined;
+    } else ctx.places.set(name, { kind: 'receiver', path: joinKey(path, 'receiver'), receiver: name });
+    if (driver && route && receiver) out.push({ name, driver, route, receiver });
+    else ok = false;
+  }
+  return ok ? out : undefined;
+}
+
+/** Every conductor a coupled section lists is a coupled item naming that section. */
+function checkConductors(r: Reader, ctx: RouteContext): void {
+  for (const [name, sec] of ctx.coupled ?? []) {
+    if (!sec) continue;
+    sec.spec.conductors.forEach((item, j) => {
+      const info = ctx.places.get(item);
+      if (info?.coupled === name) return;
+      const why = !info ? 'no item has that name' : info.coupled ? `it is a conductor of "${info.coupled}"` : `${info.path} is not a coupled item (write it as {"name": "${item}", "coupled": "${name}", "length": …})`;
+      r.problems.add(sec.conductorPaths[j], item, `a line item written as {"name": "${item}", "coupled": "${name}", "length": …} in a net's route (${why})`);
+    });
+  }
+}
+
+function readDriver(r: Reader, top: Obj, path: string): Net['driver'] | undefined {
+  const what = 'a driver like {"signal": {"kind": "step", ...}, "resistance": "25ohm"} or a quiet one like {"level": "0V", "resistance": "40ohm"}';
+  if (!top.has('driver')) return top.missing('driver', what);
+  const o = r.object(top.get('driver'), path, what, top.pos);
   if (!o) return undefined;
   o.checkKeys(DRIVER_KEYS);
   let signal: Signal | undefined;
-  if (!o.has('signal')) o.missing('signal', 'a signal like {"kind": "step", "from": "0V", "to": "3.3V", "rise": "600ps"}');
+  if (o.has('signal') && o.has('level')) r.fail(o.keyPath('level'), o.get('level'), 'either "signal" or "level" (a quiet driver holding its level), not both', o.pos);
+  else if (o.has('level')) {
+    // a quiet driver: a step from its level to its level (no edge; fastestEdge is Infinity)
+    const level = o.quantity('level', { dim: 'voltage', example: '0V' });
+    if (level !== undefined) signal = { kind: 'step', from: level, to: level, start: 0, rise: 1e-12 };
+  } else if (!o.has('signal')) o.missing('signal', 'a signal like {"kind": "step", "from": "0V", "to": "3.3V", "rise": "600ps"}, or "level" for a quiet driver');
   else signal = readSignal(r, o.get('signal'), o.keyPath('signal'), o.pos);
   // 0 ohm is an ideal source; the solver's lumped equations take it as a constraint.
   const resistance = o.quantity('resistance', { dim: 'resistance', range: NON_NEGATIVE, example: '25ohm' });
@@ -129,8 +226,13 @@ function readMainReceiver(r: Reader, top: Obj, ctx: RouteContext): NamedReceiver
   return readReceiver(r, top.get('receiver'), 'receiver', ctx, true, top.pos);
 }
 
-function readProbes(r: Reader, top: Obj, items: Map<string, PlaceInfo>, receivers: NamedReceiver[] | undefined): ProbeSpec[] | undefined {
-  // No "probes" key: probe the driver pin and every receiver ("driver" and "receiver" without branches).
+function readProbes(r: Reader, top: Obj, items: Map<string, PlaceInfo>, receivers: NamedReceiver[] | undefined, nets: string[] | undefined): ProbeSpec[] | undefined {
+  const multi = top.has('nets');
+  // No "probes" key: probe the driver pin and every receiver ("driver" and "receiver" without branches);
+  // with several nets, each net's driver pin as "NET.driver" and every receiver by its name.
+  if (!top.has('probes') && multi) {
+    return nets && receivers ? [...nets.map((n, k): ProbeSpec => (k === 0 ? { name: `${n}.driver`, at: 'driver' } : { name: `${n}.driver`, at: 'driver', net: n })), ...receivers.map((rx): ProbeSpec => ({ name: rx.name, at: 'receiver', receiver: rx.name }))] : undefined;
+  }
   if (!top.has('probes')) return receivers ? defaultProbes(receivers) : DEFAULT_PROBES.map((p) => ({ ...p }));
   const what = 'a list of at least one probe like [{"name": "rx", "at": "receiver"}] (leave "probes" out for probes at the driver and the receiver)';
   const seq = r.list(top.get('probes'), 'probes', what, top.pos);
@@ -140,14 +242,14 @@ function readProbes(r: Reader, top: Obj, items: Map<string, PlaceInfo>, receiver
   const names = new Map<string, string>();
   let ok = true;
   for (const it of Obj.items(seq, 'probes')) {
-    const p = readProbe(r, it.node, it.path, items, names, seq.pos);
+    const p = readProbe(r, it.node, it.path, items, names, seq.pos, nets);
     if (p) out.push(p);
     else ok = false;
   }
   return ok ? out : undefined;
 }
 
-function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, PlaceInfo>, names: Map<string, string>, at?: Pos): ProbeSpec | undefined {
+function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, PlaceInfo>, names: Map<string, string>, at?: Pos, nets?: string[]): ProbeSpec | undefined {
   const o = r.object(node, path, 'a probe like {"name": "rx", "at": "receiver"}', at);
   if (!o) return undefined;
   let ok = o.checkKeys(PROBE_KEYS);
@@ -196,8 +298,16 @@ function readProbe(r: Reader, node: SrcNode, path: string, items: Map<string, Pl
       ok = false;
     }
   }
+  let net: string | undefined;
+  if (o.has('net')) {
+    net = o.string('net', 'the name of a net');
+    if (target !== 'driver') ok = !!r.fail(o.keyPath('net'), o.get('net'), `no "net" on a probe at ${kindText ?? 'this place'} ("net" picks the driver pin of a net; items and receivers are named across all nets)`, o.pos);
+    else if (net !== undefined && !nets?.includes(net)) ok = !!r.fail(o.keyPath('net'), o.get('net'), `the name of a net (${(nets ?? []).map((n) => `"${n}"`).join(', ') || 'this scenario has no "nets"'})`, o.pos);
+    if (net === undefined) ok = false;
+  }
   if (!ok || name === undefined || target === undefined) return undefined;
-  if (target === 'driver' || target === 'receiver') return { name, at: target };
+  if (target === 'driver') return net !== undefined && net !== nets?.[0] ? { name, at: 'driver', net } : { name, at: 'driver' };
+  if (target === 'receiver') return { name, at: target };
   if (!info) return undefined;
   if (info.kind === 'receiver') return info.path === 'receiver' ? { name, at: 'receiver' } : { name, at: 'receiver', receiver: target };
   if (info.kind === 'branch') return { name, at: 'branch', item: target };

@@ -22,7 +22,7 @@
 import { attenuationDbPerM, losslessZ0 } from '../../sim/lines/freq-model.js';
 import { DB_PER_NEPER } from '../../sim/lines/constants.js';
 import type { Net, Part, RouteItem, Signal } from '../../sim/model.js';
-import { isBranched } from '../../sim/route-tree.js';
+import { isBranched, isMultiNet } from '../../sim/route-tree.js';
 import { fastestEdge as fastestEdgeOf, rampDuration } from '../../sim/signals.js';
 import type { SourceEdge } from './lattice.js';
 import { formatSi } from '../render/ticks.js';
@@ -189,6 +189,9 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
   const sig = signalEdges(net.driver.signal, duration);
   if ('refusal' in sig) return { net, notes, refusals: [sig.refusal], edges: [], horizon: duration };
   if (sig.note) notes.push(sig.note);
+  if (isMultiNet(net)) {
+    return { net, notes, refusals: ['the scenario has several nets: the lattice is drawn along one net without coupled sections (crosstalk is not drawn as a lattice)'], edges: sig.edges, horizon: duration };
+  }
   if (isBranched(net)) {
     return { net, notes, refusals: ['the route branches: the lattice is drawn along one unbranched route (a lattice along one path of a tree is not done yet)'], edges: sig.edges, horizon: duration };
   }

@@ -16,7 +16,7 @@
 import { compileNet } from '../../sim/circuit.js';
 import { defaultDuration } from '../../sim/discretize.js';
 import type { Net, Part, RouteItem } from '../../sim/model.js';
-import { isBranched } from '../../sim/route-tree.js';
+import { isBranched, isMultiNet } from '../../sim/route-tree.js';
 import { rampDuration } from '../../sim/signals.js';
 
 export interface LatticeOptions {
@@ -193,6 +193,7 @@ export function latticeLimitations(net: Net): string[] {
     if (r) reasons.push(r);
   });
   if (lines === 0) reasons.push('the route has no line segment: there is nothing for waves to travel on');
+  if (isMultiNet(net)) reasons.push('the scenario has several nets: this view draws one net without coupled sections');
   if (isBranched(net)) reasons.push('the route branches: this view draws one unbranched route (branched nets are not drawn yet)');
   return reasons;
 }

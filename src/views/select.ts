@@ -6,7 +6,7 @@
 import { compileNet } from '../../sim/circuit.js';
 import { defaultDuration } from '../../sim/discretize.js';
 import type { Net } from '../../sim/model.js';
-import { allItems } from '../../sim/route-tree.js';
+import { netItems } from '../../sim/route-tree.js';
 import { eyeUnavailableReason } from './eye.js';
 import { idealiseForLattice } from './idealise.js';
 
@@ -97,7 +97,7 @@ export interface ViewPlan {
 
 /** Why the voltage along the route cannot be drawn (map, frames), or null. */
 export function routeMapUnavailableReason(net: Net): string | null {
-  const length = allItems(net.route).reduce((a, it) => a + (it.kind === 'line' ? it.length : 0), 0);
+  const length = netItems(net).reduce((a, it) => a + (it.kind === 'line' ? it.length : 0), 0);
   return length > 0 ? null : 'the route has no line segment, so there is no distance along it to draw';
 }
 

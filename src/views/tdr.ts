@@ -20,7 +20,7 @@ import { NetError } from '../../sim/errors.js';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { Net } from '../../sim/model.js';
 import { probeTrace, type SimResult } from '../../sim/result.js';
-import { isBranched } from '../../sim/route-tree.js';
+import { isBranched, isMultiNet } from '../../sim/route-tree.js';
 import { rampDuration, signalFunction } from '../../sim/signals.js';
 import type { Frame } from '../render/frame.js';
 import { drawLinePlot } from '../render/lineplot.js';
@@ -70,6 +70,9 @@ function segmentsOf(net: Net) {
  */
 export function tdrNet(net: Net, opts: TdrOptions): Net {
   if (!(opts.rise > 0) || !Number.isFinite(opts.rise)) throw new RangeError(`tdrNet: rise must be a positive time, got ${opts.rise}`);
+  if (isMultiNet(net)) {
+    throw new NetError([{ path: 'nets', message: 'the TDR profile is drawn along one net; this scenario has several (a TDR of a coupled pair — differential and common-mode profiles — is not done yet)' }]);
+  }
   if (isBranched(net)) {
     throw new NetError([{ path: 'route', message: 'the TDR profile is drawn along an unbranched route; this route branches (a profile along one path is not done yet)' }]);
   }
