@@ -95,6 +95,8 @@ export interface RouteMapItem {
   kind: 'line' | 'series' | 'shunt' | 'branch';
   from: number;
   to: number;
+  /** A line that is a conductor of a coupled section: the section's name. */
+  coupled?: string;
 }
 
 /**
@@ -103,6 +105,8 @@ export interface RouteMapItem {
  */
 export interface RouteMapPath {
   receiver: string;
+  /** With several nets: the name of the net the path belongs to (its driver's). */
+  net?: string;
   /** Columns of RouteMapRecord.values along this path, from the driver pin to the receiver. */
   columns: Int32Array;
   /** Distance of each of those columns from the driver pin along the path (m), non-decreasing. */

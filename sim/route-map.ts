@@ -69,7 +69,11 @@ export function recordRouteMap(taps: RouteMapTaps, v: Float64Array, row: number)
 function itemSpan(ladder: Ladder, name: string, place: ItemPlace): RouteMapItem {
   const at = (node: number) => ladder.position[ladder.nodeSlot[node]];
   switch (place.kind) {
-    case 'line':
+    case 'line': {
+      const coupling = ladder.circuit.segments[place.segment].coupling;
+      const span: RouteMapItem = { name, kind: place.kind, from: at(place.from), to: at(place.to) };
+      return coupling ? { ...span, coupled: ladder.circuit.coupled[coupling.section].name } : span;
+    }
     case 'series':
       return { name, kind: place.kind, from: at(place.from), to: at(place.to) };
     case 'shunt':
@@ -109,6 +113,7 @@ export function finishRouteMap(taps: RouteMapTaps, ladder: Ladder, dt: number): 
   const positions = Float64Array.from(taps.nodes, (k) => ladder.position[k]);
   const paths: RouteMapPath[] = c.paths.map((path, n) => ({
     receiver: path.receiver,
+    ...(c.sources.length > 1 ? { net: c.sources[path.source].name } : {}),
     columns: taps.pathColumns[n],
     positions: Float64Array.from(taps.pathColumns[n], (col) => positions[col]),
     ...pathLayout(ladder, c, path),

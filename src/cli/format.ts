@@ -1,4 +1,5 @@
 // Human-readable text for the terminal: aligned tables and the per-scenario run summary.
+import type { CrosstalkEntry } from '../output/crosstalk.js';
 import type { ReceiverEntry } from '../output/receivers.js';
 import type { RunReport } from '../output/run.js';
 import type { CheckResult } from '../measure/index.js';
@@ -59,6 +60,14 @@ export function formatRunReport(report: RunReport): string {
   if (receivers) {
     const rows = Object.entries(receivers).map(([name, r]) => [name, r.recorded ? r.probe : `${r.probe} (added)`, si(r.min, 'V'), si(r.max, 'V'), si(r.final, 'V')]);
     lines.push(...section('receivers', table([['', 'probe', 'min', 'max', 'final'], ...rows], ['l', 'l', 'r', 'r', 'r']), lw));
+  }
+  const crosstalk = report.summary.crosstalk as Record<string, CrosstalkEntry> | undefined;
+  if (crosstalk) {
+    const entries = Object.entries(crosstalk);
+    const swing = entries[0][1].aggressorSwingV;
+    const head = ['', 'net', 'at', 'rest', 'peak', swing === null ? '' : `of ${si(swing, 'V')}`, 'at time'];
+    const rows = entries.map(([name, x]) => [name, x.net, x.place, si(x.restV, 'V'), `${x.peakV >= 0 ? '+' : ''}${si(x.peakV, 'V')}`, x.peakPct === null ? '' : `${x.peakPct.toFixed(2)} %`, si(x.peakTime, 's')]);
+    lines.push(...section('crosstalk', [...table([head, ...rows], ['l', 'l', 'l', 'r', 'r', 'r', 'r']), 'quiet nets: largest departure from the resting level, % of the largest aggressor swing (an engineering estimate)'], lw));
   }
   lines.push(...section('wrote', report.files, lw));
   return lines.join('\n') + '\n';

@@ -28,6 +28,7 @@ export const METRIC_NAMES = [
   'noiseMarginLow',
   'belowLowRail',
   'aboveHighRail',
+  'crosstalk',
   'crossings',
   'monotonic',
   'edges',
@@ -101,6 +102,7 @@ export const METRICS: Readonly<Record<MetricName, MetricDef>> = {
   noiseMarginLow: { units: ['V'], kind: 'probe', describe: 'vil minus highest level while low, worst over the record' },
   belowLowRail: { units: ['V'], kind: 'probe', describe: "how far the probe goes below the driver's low rail (below ground for a 0 V low level)" },
   aboveHighRail: { units: ['V'], kind: 'probe', describe: "how far the probe goes above the driver's high rail (its supply)" },
+  crosstalk: { units: ['V', '%'], kind: 'probe', describe: "largest departure of a quiet net's probe from its resting level, in volts or % of the largest aggressor swing" },
   crossings: { units: ['count'], kind: 'edge', describe: 'threshold crossings per edge (vih/vil with thresholds, else 50 %), worst over edges' },
   monotonic: { units: ['V', '%'], kind: 'monotonic', describe: 'every edge monotonic between 10 % and 90 % (optional max reversal)' },
   edges: { units: ['count'], kind: 'count', describe: 'number of complete edges of the selected direction' },
@@ -224,11 +226,13 @@ export function evaluateChecks(checks: readonly CheckSpec[], probes: Readonly<Re
   return checks.map((c) => evaluateOne(c, probes));
 }
 
-type ProbeMetric = 'min' | 'max' | 'final' | 'noiseMarginHigh' | 'noiseMarginLow' | 'belowLowRail' | 'aboveHighRail';
+type ProbeMetric = 'min' | 'max' | 'final' | 'noiseMarginHigh' | 'noiseMarginLow' | 'belowLowRail' | 'aboveHighRail' | 'crosstalk';
 
 /** A probe-level metric: one value for the whole record. */
-function probeItems(metric: ProbeMetric, m: ProbeMeasurements, probe: string): Gathered {
+function probeItems(metric: ProbeMetric, m: ProbeMeasurements, probe: string, pct = false): Gathered {
   const nm = m.noiseMargins;
+  const xt = m.crosstalk;
+  const xtReason = xt === undefined ? `probe "${probe}" is not on a quiet net (crosstalk is measured on nets whose driver holds a level)` : 'no switching driver to compare with';
   const pick: Record<ProbeMetric, { value: number | null; reason?: string; edge: number | null }> = {
     min: { value: m.min, reason: m.reasons.min, edge: null },
     max: { value: m.max, reason: m.reasons.max, edge: null },
@@ -237,6 +241,7 @@ function probeItems(metric: ProbeMetric, m: ProbeMeasurements, probe: string): G
     noiseMarginLow: { value: nm?.low ?? null, reason: m.reasons['noiseMargins.low'] ?? m.reasons.noiseMargins, edge: nm?.lowEdge ?? null },
     belowLowRail: { value: m.rails?.belowLowRailV ?? null, reason: m.reasons.rails, edge: null },
     aboveHighRail: { value: m.rails?.aboveHighRailV ?? null, reason: m.reasons.rails, edge: null },
+    crosstalk: { value: xt ? (pct ? xt.peakPct : Math.abs(xt.peakV)) : null, reason: xt && (!pct || xt.peakPct !== null) ? undefined : xtReason, edge: null },
   };
   const { value, reason, edge } = pick[metric];
   const e = edge !== null ? m.edges.find((x) => x.number === edge) : undefined;
@@ -340,7 +345,7 @@ function gather(metric: MetricName, m: ProbeMeasurements, spec: CheckSpec): Gath
   const selection: EdgeSelection = def.dir ?? spec.edges ?? 'all';
   switch (def.kind) {
     case 'probe':
-      return probeItems(metric as ProbeMetric, m, spec.probe);
+      return probeItems(metric as ProbeMetric, m, spec.probe, (spec.max ?? spec.min)?.unit === '%');
     case 'count':
       return countItems(m, selection, spec.probe);
     case 'delay':

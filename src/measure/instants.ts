@@ -80,6 +80,8 @@ export function probeMetricAt(metric: MetricName, m: ProbeMeasurements): Measure
       return instant(m.maxTime);
     case 'final':
       return { a: m.t0 + m.duration };
+    case 'crosstalk':
+      return m.crosstalk ? { a: m.crosstalk.peakTime } : null;
     case 'noiseMarginHigh':
     case 'noiseMarginLow': {
       const k = metric === 'noiseMarginHigh' ? m.noiseMargins?.highEdge : m.noiseMargins?.lowEdge;
@@ -110,7 +112,7 @@ export function checkAt(r: CheckResult, probes: Readonly<Record<string, ProbeMea
     return delayAt(d, e, first !== null && r.measured === first && r.measured !== last ? 'first' : 'last');
   }
   const probeLevel = probeMetricAt(metric, m);
-  if (probeLevel || ['min', 'max', 'final', 'belowLowRail', 'aboveHighRail'].includes(metric)) return probeLevel;
+  if (probeLevel || ['min', 'max', 'final', 'belowLowRail', 'aboveHighRail', 'crosstalk'].includes(metric)) return probeLevel;
   if (r.edge === null) return null;
   const e = edgeNumbered(m, r.edge);
   return e ? edgeMetricAt(metric, e, bandIndex) : null;

@@ -10,6 +10,7 @@ import { analysisFlags, type Flag } from './flags.js';
 import { noiseMargins, type NoiseMargins } from './noise-margins.js';
 import { railExcursions, type Rails, type RailExcursions } from './aberrations.js';
 import { formatSI } from './format.js';
+import type { CrosstalkMeasurement } from './crosstalk.js';
 
 export type { Flag, FlagCode } from './flags.js';
 export type { NoiseMargins } from './noise-margins.js';
@@ -85,6 +86,8 @@ export interface ProbeMeasurements {
   rails: RailExcursions | null;
   /** Settling bands that were measured (half-widths as given). */
   settleBands: BandSpec[];
+  /** On a quiet net's probe (multi-net scenarios): its departure from its resting level. */
+  crosstalk?: CrosstalkMeasurement;
   flags: Flag[];
   /** Why a probe-level field is null, keyed by the field's name ("noiseMargins.high" for a margin). */
   reasons: Partial<Record<ProbeReasonKey, string>>;

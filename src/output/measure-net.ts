@@ -15,6 +15,8 @@ import {
 } from '../measure/index.js';
 import { netChecks, netLevelMethod, netThresholds } from '../scenario/checks.js';
 import { netSettledLevels, type NetSettledLevels } from './net-levels.js';
+import { measureCrosstalk } from '../measure/crosstalk.js';
+import { aggressorSwing, quietProbes } from './crosstalk.js';
 
 export interface NetMeasurements {
   /** Per probe, in probe order. */
@@ -51,6 +53,8 @@ export function measureNet(net: Net, result: SimResult, extraChecks: readonly Ch
   const all = [...checks, ...extraChecks];
   const measurements: Record<string, ProbeMeasurements> = {};
   const levels = netLevelMethod(net) === 'settled' ? (settled ?? netSettledLevels(net, result.discretization)) : undefined;
+  const quiet = quietProbes(net);
+  const swing = quiet.size ? aggressorSwing(net) : null;
   record.names.forEach((name, p) => {
     const seen = new Set<string>();
     const bands = requiredSettleBands(all, name).filter((b) => !seen.has(bandKey(b)) && seen.add(bandKey(b)));
@@ -64,6 +68,7 @@ export function measureNet(net: Net, result: SimResult, extraChecks: readonly Ch
       settleBands: bands,
       ...(thresholds ? { thresholds } : {}),
     });
+    if (quiet.has(name)) measurements[name].crosstalk = measureCrosstalk(rows[p], record.dtSample, swing);
   });
   return { measurements, results: evaluateChecks(checks, measurements) };
 }

@@ -25,6 +25,7 @@ import { measureNet } from './measure-net.js';
 import { crossingLevels, netSettledLevels } from './net-levels.js';
 import type { CheckResult } from '../measure/index.js';
 import { receiversSection, withReceiverProbes } from './receivers.js';
+import { crosstalkSection } from './crosstalk.js';
 
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
@@ -278,6 +279,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const measured = addMeasurementSections(summary, net, userResult, measureNet(net, userResult, [], settled));
   const receivers = receiversSection(net, simNet, result);
   if (receivers) addSummarySection(summary, 'receivers', receivers);
+  const crosstalk = crosstalkSection(net, measured.measurements);
+  if (crosstalk) addSummarySection(summary, 'crosstalk', crosstalk);
   if (plan.views.includes('eye')) {
     const { eyeInputFor } = await import('../views/draw.js');
     const { measureEye, EYE_MIN_WINDOWS, fewWindowsNote } = await import('../views/eye.js');

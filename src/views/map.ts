@@ -254,7 +254,10 @@ function drawPathPanels(s: Surface, area: Rect, input: RouteMapInput): RouteMapD
       { x: area.x + pad, y: area.y + pad, w: area.w - 2 * pad, h: area.h },
       input.title,
       `Voltage along every path from the driver pin to a receiver (one panel each, the main receiver's first), time running downward` +
-        `${zoomed ? `, zoomed on the first edge (${timeSpan(window[0], window[1])})` : ''}. One colour scale centred on ${centerText}. ` +
+        `${zoomed ? `, zoomed on the first edge (${timeSpan(window[0], window[1])})` : ''}. ` +
+        (rm.paths.some((p) => p.net !== undefined)
+          ? `Each net on its own colour scale, centred on its resting level (a quiet net shows its crosstalk). Hatched: coupled sections. `
+          : `One colour scale centred on ${centerText}. `) +
         `Dashed lines: ends of line segments; solid: parts and branch points, where the other paths leave.`,
     );
   const panelTitleH = lineStep(s, 14, 6, true);
@@ -263,26 +266,31 @@ function drawPathPanels(s: Surface, area: Rect, input: RouteMapInput): RouteMapD
   const h = area.y + area.h - top;
   const perPanel = Math.max(120, Math.round((area.w * 1.5) / maps.length));
   const grids = maps.map((m) => routeMapGrid(m, Math.min(1600, perPanel)));
-  const color: ColorScaleSpec = { kind: 'diverging', label: 'Voltage', unit: 'V', center };
+  // Several nets: each panel on its own colour scale centred on its own resting level, so a quiet
+  // net's crosstalk (a few % of the aggressor's swing) shows instead of vanishing in the aggressor's scale.
+  const perNet = rm.paths.some((p) => p.net !== undefined);
+  const colorOf = (g: Grid2D): ColorScaleSpec => ({ kind: 'diverging', label: 'Voltage', unit: 'V', center: perNet ? g.values[0] : center });
   const all = new Float64Array(grids.reduce((n, g) => n + g.values.length, 0));
   grids.reduce((o, g) => (all.set(g.values, o), o + g.values.length), 0);
-  const norm = colorNormalization(all, color);
-  const barW = colorScaleWidth(s, norm.lo, norm.hi, color, h);
-  const w = (area.w - barW - 8) / maps.length;
+  const norms = grids.map((g) => colorNormalization(perNet ? g.values : all, colorOf(g)));
+  const barWs = norms.map((n, k) => colorScaleWidth(s, n.lo, n.hi, colorOf(grids[k]), h));
+  const w = perNet ? area.w / maps.length : (area.w - barWs[0] - 8) / maps.length;
   const panels: Frame[] = [];
   maps.forEach((m, k) => {
     const g = grids[k];
     const x = { label: 'Distance from the driver pin', unit: 'm', domain: g.xRange } as const;
-    const box: Rect = { x: Math.round(area.x + k * w), y: top, w: Math.round(w), h };
-    const f = drawPlainMap(s, box, g, norm, x, [window[1], window[0]], routeMarkers(m));
+    const box: Rect = { x: Math.round(area.x + k * w), y: top, w: Math.round(perNet ? w - barWs[k] - 8 : w), h };
+    const f = drawPlainMap(s, box, g, norms[k], x, [window[1], window[0]], routeMarkers(m));
     drawRouteStrip(s, f, m, { x: f.plot.x, y: top - stripH, w: f.plot.w, h: stripH - 6 });
-    const heading = `${k === 0 ? 'Main path' : 'Branch'} → ${rm.paths[k].receiver}`;
+    const path = rm.paths[k];
+    const heading = path.net !== undefined ? `Net ${path.net} → ${path.receiver}` : `${k === 0 ? 'Main path' : 'Branch'} → ${path.receiver}`;
     s.text(fitText(s, heading, 14, f.plot.w + 40, true), f.plot.x, area.y + titleH, { size: 14, bold: true, baseline: 'top' });
+    if (perNet) drawColorScale(s, { x: box.x + box.w + 4, y: f.plot.y, w: barWs[k], h: f.plot.h }, norms[k].lo, norms[k].hi, colorOf(g));
     panels.push(f);
   });
   const frame = panels[0];
-  drawColorScale(s, { x: area.x + area.w - barW, y: frame.plot.y, w: barW, h: frame.plot.h }, norm.lo, norm.hi, color);
-  return { frame, panels, window, center, range: [norm.lo, norm.hi], grid: grids[0] };
+  if (!perNet) drawColorScale(s, { x: area.x + area.w - barWs[0], y: frame.plot.y, w: barWs[0], h: frame.plot.h }, norms[0].lo, norms[0].hi, colorOf(grids[0]));
+  return { frame, panels, window, center, range: [norms[0].lo, norms[0].hi], grid: grids[0] };
 }
 
 /** A heat map of `g` in `area` without a colour bar (several panels share one), with marker lines. */
@@ -368,8 +376,10 @@ function drawRouteStrip(s: Surface, f: Frame, rm: RouteMapRecord, box: Rect): vo
     if (it.kind !== 'line' || it.to <= it.from) continue;
     const x0 = Math.round(f.x.map(it.from)), x1 = Math.round(Math.min(right, f.x.map(it.to)));
     s.fillRect(x0, barY, x1 - x0, barH, '#e3e7ee');
+    // a coupled section's conductor: hatched, and named with its section
+    if (it.coupled) for (let x = x0 + 2; x < x1; x += 6) s.vline(x, barY + 1, barY + barH - 1, '#b9a3d6');
     s.strokeRect(x0, barY, x1 - x0 + 1, barH, '#8a93a3');
-    const text = fitText(s, it.name, TYPE.marker, x1 - x0 - 6);
+    const text = fitText(s, it.coupled ? `${it.name} ⇄ ${it.coupled}` : it.name, TYPE.marker, x1 - x0 - 6);
     if (text !== '…' && text.length > 0) {
       s.text(text, (x0 + x1) / 2, barY + barH / 2 + 0.5, { size: TYPE.marker, color: THEME.text, align: 'center', baseline: 'middle' });
     }

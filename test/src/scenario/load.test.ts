@@ -137,7 +137,7 @@ describe('errors.json: every deliberate mistake is reported, with path, value an
     ['probes[6].position', undefined, 32, 5, /^a position along the line/],
     ['run.cellsPerRise', 2.5, 34, 48, /^a whole number ≥ 4 like 20$/],
     ['run.smaple', '1ps', 34, 53, /did you mean "sample"\?/],
-    ['extra', true, 35, 3, /^a known key \(keys here: title, description, driver, lines, route, receiver, probes, run, levels, thresholds, checks\)$/],
+    ['extra', true, 35, 3, /^a known key \(keys here: title, description, driver, lines, route, receiver, probes, run, levels, thresholds, checks, nets, coupled\)$/],
   ];
 
   it.each(expected)('%s', (path, value, line, col, exp) => {
