@@ -8,9 +8,12 @@ import { fromValue, parseText, type MapNode, type SrcNode } from '../scenario/pa
 import { joinIndex, joinKey, Problems, ScenarioError, type Problem } from '../scenario/problems.js';
 import { Reader } from '../scenario/read.js';
 import type { LineInput } from './evaluate.js';
+import type { CoupledInput } from './coupled.js';
 
 export interface LineSources {
   lines: LineInput[];
+  /** The scenario's coupled sections (multi-net scenarios). */
+  coupled?: CoupledInput[];
   /** Loader warnings (out-of-range geometry, datasheet fit error ...). */
   warnings: Problem[];
 }
@@ -27,7 +30,8 @@ export async function linesFromScenario(file: string): Promise<LineSources> {
   const { net, text, warnings } = await readScenario(file);
   // The file was accepted: read its tree again for the descriptions behind the numbers.
   const root = parseText(text, new Problems(file));
-  return { lines: linesOfTree(net, root, new Reader(new Problems(file))), warnings };
+  const coupled = (net.coupled ?? []).map((c): CoupledInput => ({ name: c.name, origin: `coupled.${c.name} (conductors ${c.conductors.join(', ')})`, form: 'matrices', line: c.line, inputs: {}, warnings: [] }));
+  return { lines: linesOfTree(net, root, new Reader(new Problems(file))), coupled, warnings };
 }
 
 /** The lines of an accepted scenario, given its Net and its source tree. */
@@ -60,11 +64,19 @@ export function linesOfTree(net: Net, root: SrcNode | undefined, reader: Reader)
         lineNode = entry(named, lineName);
         path = joinKey('lines', lineName);
       }
+      const section = net.coupled?.find((c) => c.conductors.includes(item.name));
+      if (section) {
+        out.push({ name: item.name, origin: `conductor of coupled section '${section.name}', its self terms L_ii, C_ii`, length: item.length, rlgc: item.line });
+        return;
+      }
       const description = describeLineNode(reader, lineNode, path);
       out.push({ name: item.name, origin: 'route item', length: item.length, lineName, rlgc: item.line, description });
     });
   };
-  walk(net.route, route, 'route');
+  const nets = entry(root, 'nets');
+  if (net.netName === undefined) walk(net.route, route, 'route');
+  else walk(net.route, entry(entry(nets, net.netName), 'route'), joinKey(joinKey('nets', net.netName), 'route'));
+  for (const side of net.nets ?? []) walk(side.route, entry(entry(nets, side.name), 'route'), joinKey(joinKey('nets', side.name), 'route'));
   // Named lines no item uses: checked by the loader all the same, so still worth a report.
   if (named?.type === 'map') {
     for (const e of (named as MapNode).entries) {

@@ -83,6 +83,11 @@ export function metricColumns(bands: readonly CheckLimit[] = []): MetricColumn[]
   return cols;
 }
 
+/** Crosstalk columns, for scenarios with several nets (empty on probes that are not on a quiet net). */
+export function crosstalkColumns(): MetricColumn[] {
+  return (['V', '%'] as const).map((unit) => ({ key: key('crosstalk', unit, undefined), metric: 'crosstalk' as const, unit }));
+}
+
 /** The settling bands a scenario's checks use (for the extra settling columns). */
 export function checkBands(net: Net): CheckLimit[] {
   return netChecks(net)

@@ -7,7 +7,7 @@
 import type { Net } from '../../sim/model.js';
 import type { CheckLimit } from '../measure/index.js';
 import { sha256Hex } from '../output/summary.js';
-import { checkBands, columnName, metricColumns, WORSE, type MetricColumn, type WorstOf } from './columns.js';
+import { checkBands, columnName, crosstalkColumns, metricColumns, WORSE, type MetricColumn, type WorstOf } from './columns.js';
 import { checkScenarioValue, readScenario } from '../scenario/load.js';
 import { parseText, toPlain } from '../scenario/parse.js';
 import { Problems, ScenarioError, type Problem } from '../scenario/problems.js';
@@ -154,7 +154,7 @@ export async function planSweep(req: SweepRequest): Promise<SweepPlan> {
   const probes = net.probes.map((p) => p.name);
   // Columns measured against logic thresholds only when some probe has them.
   const anyThresholds = probes.some((p) => netThresholds(net, p) !== undefined);
-  const columns = metricColumns(bands).filter((c) => anyThresholds || !c.needsThresholds);
+  const columns = [...metricColumns(bands).filter((c) => anyThresholds || !c.needsThresholds), ...(net.nets?.length ? crosstalkColumns() : [])];
   const defaultProbe = receiverProbe(net);
   const worst = worstOf(net, columns);
   const params = mode === 'grid' ? axes.map((a) => ({ path: a.path, column: paramColumn(a.path, a.unit), unit: a.unit })) : planned.map((s) => ({ path: s.path, column: paramColumn(s.path, s.valueUnit), unit: s.valueUnit }));
@@ -169,7 +169,8 @@ export async function planSweep(req: SweepRequest): Promise<SweepPlan> {
   const points = mode === 'grid' ? axes.reduce((n, a) => n * a.values.length, 1) : samples;
   const firstCheck = checks[0];
   const fallback = firstCheck && mode === 'montecarlo' ? (columns.find((c) => c.metric === firstCheck.metric && c.unit === (firstCheck.max ?? firstCheck.min)?.unit && !c.band)?.key ?? 'overshoot_pct') : 'overshoot_pct';
-  const metric = resolvePlotMetric(req.metric, pick?.objective.key, columns, fallback);
+  // several nets: plot the quiet nets' crosstalk unless asked otherwise (a quiet net's "overshoot" is meaningless)
+  const metric = resolvePlotMetric(req.metric, pick?.objective.key, columns, net.nets?.length && mode === 'grid' ? 'crosstalk_pct' : fallback);
   return {
     format: SWEEP_FORMAT,
     scenario: { file: req.file, sha256: loaded.sha256, title: net.title },

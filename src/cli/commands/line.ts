@@ -71,11 +71,13 @@ export async function lineCommand(scenario: string | undefined, opts: LineComman
     if (opts.item && scenario === undefined) throw new UsageError('--item picks lines of a scenario file: give one');
 
     let lines: LineInput[] = [];
+    const coupledFromFile: CoupledInput[] = [];
     const warnings: Problem[] = [];
     if (scenario !== undefined) {
       const s = await linesFromScenario(scenario);
       lines.push(...s.lines);
       warnings.push(...s.warnings);
+      coupledFromFile.push(...(s.coupled ?? []));
       if (opts.item) {
         const names = lines.map((l) => l.name);
         const missing = opts.item.filter((n) => !names.includes(n));
@@ -90,7 +92,7 @@ export async function lineCommand(scenario: string | undefined, opts: LineComman
       lines.push(...s.lines);
       warnings.push(...s.warnings);
     }
-    const coupled: CoupledInput[] = [];
+    const coupled: CoupledInput[] = [...coupledFromFile];
     for (const c of coupledGiven) {
       const s = coupledFromOption(c.form, c.pairs, c.name);
       coupled.push(s.input);
