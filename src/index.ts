@@ -72,3 +72,6 @@ export { passivityOfData, passivityOfFit, passivityAboveBand, type PassivityRepo
 export { evaluateModel, type RationalModel } from '../sim/sparams/rational.js';
 export { createCompanion, companionHistory, companionAdvance, companionCurrent, startAtDc, type Companion } from '../sim/sparams/companion.js';
 export { createWaveCompanion, startWaveAtDc, waveHistory, waveAdvance, type WaveCompanion } from '../sim/sparams/wave-companion.js';
+// Termination advice (`ladderwave tame`).
+export { advise, adviceJson, adviceMarkdown, formatAdviceTable, optionRows, renderAdvicePlot, winner, winnerValue, writeWinner, OBJECTIVES, parseObjective, TOPOLOGIES, neighbours, membersBetween, parseSeriesName, seriesMantissas, SERIES_NAMES, type Advice, type AdviseRequest, type OptionResult, type MonteCarlo, type OptionRow, type ObjectiveName, type TopologyId, type SeriesName } from './terminate/index.js';
+export { PointPool, type PointPoolOptions } from './sweep/point-pool.js';

@@ -12,6 +12,7 @@ import { registerCheckCommand } from './commands/check.js';
 import { registerSweepCommand } from './commands/sweep.js';
 import { registerMergeCommand } from './commands/merge.js';
 import { registerSparamsCommand } from './commands/sparams.js';
+import { registerTameCommand } from './commands/tame.js';
 import type { CliContext } from './context.js';
 import { EXIT, type ExitCode } from '../exit-codes.js';
 import { processIO, type CliIO } from './io.js';
@@ -39,6 +40,7 @@ export function createProgram(ctx: CliContext): Command {
   registerSweepCommand(program, ctx);
   registerMergeCommand(program, ctx);
   registerSparamsCommand(program, ctx);
+  registerTameCommand(program, ctx);
   return program;
 }
 

@@ -52,6 +52,11 @@ export interface SweepPlan {
   pick: string | null;
   /** Column key plotted in sweep.png (e.g. "overshoot_pct"). */
   metric: string;
+  /**
+   * Probes whose residual area (src/measure/residual.ts) ends each row, after the checks' columns
+   * (the termination advisor's plans; sweeps from the command line have none).
+   */
+  residual?: string[];
 }
 
 export interface SweepRequest {

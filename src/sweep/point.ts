@@ -3,6 +3,12 @@
 // it ran.
 import { NetError, RunRefused, type NetProblem, type Overrun } from '../../sim/errors.js';
 import { simulate } from '../../sim/simulate.js';
+import { probeTrace } from '../../sim/result.js';
+import { settledProbeLevels } from '../../sim/settled.js';
+import { nominalLevels } from '../../sim/signals.js';
+import { residualArea } from '../measure/residual.js';
+import type { Net } from '../../sim/model.js';
+import type { SimResult } from '../../sim/result.js';
 import { ScenarioError, type Problem } from '../scenario/problems.js';
 import { pointValues, worstValues } from './columns.js';
 import { pointAssignments, pointNet, type SweepPlan } from './plan.js';
@@ -21,7 +27,19 @@ export function evaluatePoint(plan: SweepPlan, i: number, opts: PointOptions = {
   const worst = plan.worst ? worstValues(plan.worst, plan.probes, plan.columns, pv.values) : [];
   const row: SweepRow = [i, ...pointAssignments(plan, i).map((a) => a.value), ...pv.values, ...worst];
   if (plan.hasChecks) row.push(pv.checks?.failed ?? null, pv.checks?.margin ?? null);
+  if (plan.residual) row.push(...residuals(net, result, plan.residual));
   return row;
+}
+
+/** The residual area (src/measure/residual.ts) of each named probe, against its settled levels. */
+function residuals(net: Net, result: SimResult, probes: readonly string[]): (number | null)[] {
+  const src = nominalLevels(net.driver.signal);
+  const settled = settledProbeLevels(net, [src.low, src.high], result.discretization);
+  return probes.map((name) => {
+    const p = settled.probes.indexOf(name);
+    if (p < 0) return null;
+    return residualArea(probeTrace(result.record, name), result.record.dtSample, net.driver.signal, settled.volts[p]![0]!, settled.volts[p]![1]!);
+  });
 }
 
 /** An error as plain data, to cross from a worker to the main thread. */
