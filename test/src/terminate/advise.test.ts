@@ -124,6 +124,29 @@ describe('advise on a lossless point-to-point line (10 Ω driver, Z0 = 50 Ω)', 
   });
 });
 
+describe('advise on a symmetric star of two equal arms at the driver pin (5 Ω driver)', () => {
+  it('finds one series resistor Z0/2 − R_out at the driver and Z0 − 2·R_out per arm', async () => {
+    const file = join(dir, 'star.json');
+    const arm = (name: string) => ({ name, line: 't', length: '20cm' });
+    await writeFile(
+      file,
+      JSON.stringify({
+        ...pointToPoint(5),
+        route: [{ name: 'hub', branch: { route: [arm('arm_a')], receiver: { name: 'a' } } }, arm('arm_b')],
+        receiver: { name: 'b' },
+      }),
+    );
+    const a = await advise({ file, jobs: 1, only: ['series', 'series-arms'] });
+    // Seen from the driver the two arms are Z0/2 in parallel: Rs = Z0/2 − R_out = 20 Ω (Johnson & Graham
+    // ch. 6, source termination). By symmetry each arm carries half the current, as if driven alone
+    // from 2·R_out: Rs = Z0 − 2·R_out = 40 Ω per arm → E24 39 Ω.
+    expect(option(a, 'series').values).toEqual([neighbours('E24', Z0 / 2 - 5).nearest]);
+    expect(option(a, 'series-arms').values).toEqual([39, 39]);
+    expect(a.facts.receivers.map((r) => r.name)).toEqual(['b', 'a']);
+    for (const o of a.options.filter((x) => x.id !== 'as-given')) expect(o.score.pass).toBe(true);
+  }, 120_000);
+});
+
 describe('advise: RC (AC) termination', () => {
   it('puts R at Z0 and keeps R·C at least 3 round trips (common practice)', async () => {
     const file = join(dir, 'p2p-stiff.json');
