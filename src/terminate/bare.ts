@@ -34,6 +34,24 @@ export function isTerminationPart(p: Part, z0: number): boolean {
   return p.r > 0 && p.l === 0 && z0 > 0 && p.r <= TERMINATION_MAX_Z0 * z0;
 }
 
+/** Probes on removed items go too, and the checks on those probes (each named in `removed`). */
+function dropProbesAt(value: Obj, items: ReadonlySet<string>, removed: string[]): void {
+  if (items.size === 0 || !Array.isArray(value.probes)) return;
+  const gone = new Set<string>();
+  value.probes = (value.probes as Obj[]).filter((p) => {
+    if (!(typeof p.at === 'string' && items.has(p.at))) return true;
+    gone.add(String(p.name ?? p.at));
+    removed.push(`probe ${String(p.name ?? p.at)} (at ${p.at})`);
+    return false;
+  });
+  if (gone.size === 0 || !Array.isArray(value.checks)) return;
+  value.checks = (value.checks as Obj[]).filter((c) => {
+    if (!gone.has(String(c.probe))) return true;
+    removed.push(`check ${String(c.metric)} on ${String(c.probe)}`);
+    return false;
+  });
+}
+
 /** The scenario value without the terminations it already has. */
 export function bareNet(value: Obj, net: Net, facts: NetFacts): BareNet {
   const out = cloneValue(value);
@@ -49,6 +67,7 @@ export function bareNet(value: Obj, net: Net, facts: NetFacts): BareNet {
     lead++;
   }
   route.splice(0, lead);
+  dropProbesAt(out, new Set(net.route.slice(0, lead).map((it) => it.name)), removed);
   const raws = rawReceivers(out);
   allReceivers(net).forEach((rx, i) => {
     const z0 = facts.receivers[i]?.z0 ?? 0;
