@@ -228,7 +228,20 @@ export async function advise(req: AdviseRequest): Promise<Advice> {
     return !why;
   });
   try {
-    const options = await Promise.all([asGiven(ctx, original, loaded.net, bare.parts), ...chosen.map((t) => adviseOption(ctx, t, req, series))]);
+    // One option that cannot be completed (a run refused, no rounded set keeping its rule) is listed
+    // as not tried with the reason; the others still count. When every option fails, the first error stands.
+    const errors: unknown[] = [];
+    const tried = await Promise.all(
+      chosen.map((t) =>
+        adviseOption(ctx, t, req, series).catch((e: unknown) => {
+          errors.push(e);
+          skipped.push({ id: t.id, title: t.title, reason: `could not be completed: ${e instanceof Error ? e.message.split('\n')[0] : String(e)}` });
+          return null;
+        }),
+      ),
+    );
+    if (chosen.length > 0 && errors.length === chosen.length) throw errors[0];
+    const options = [await asGiven(ctx, original, loaded.net, bare.parts), ...tried.filter((o): o is OptionResult => o !== null)];
     const rank = rankOrder(obj);
     const ranked = (o: OptionResult) => ({ score: o.score, parts: partCount(o), power: Math.max(o.power.low, o.power.high) });
     options.sort((a, b) => rank(ranked(a), ranked(b)).order);

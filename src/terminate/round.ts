@@ -33,6 +33,10 @@ export function neighbourSets(values: readonly number[], series: SeriesName): nu
     for (let mask = 0; mask < 1 << values.length; mask++) push(nb.map((n, i) => ((mask >> i) & 1 ? n.above : n.below)));
   } else {
     nb.forEach((n, i) => push(nearest.map((x, j) => (j === i ? (x === n.below ? n.above : n.below) : x))));
+    // every value rounded up, and every value rounded down: a rule on a product (R·C ≥ a floor) that
+    // the continuous values keep is kept by the first
+    push(nb.map((n) => n.above));
+    push(nb.map((n) => n.below));
   }
   return out;
 }
