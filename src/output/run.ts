@@ -84,6 +84,8 @@ export interface RunOptions extends SimulateOptions {
   explore?: boolean;
   /** The eye view's probe, thresholds and sampling phase. */
   eye?: EyeViewOptions;
+  /** The receiver whose path the bounce view follows on a branched net (default: the main receiver). */
+  path?: string;
 }
 
 export interface RunReport {
@@ -253,7 +255,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const scenario = await readScenarioFile(file);
   const { net } = scenario;
   const { planViews } = await import('../views/select.js');
-  const plan = planViews(net, options.views ?? ['waveforms'], options.frames ?? 0);
+  const plan = planViews(net, options.views ?? ['waveforms'], options.frames ?? 0, options.path);
   const frames = plan.framesSkipped === null ? (options.frames ?? 0) : 0;
 
   options.onPhase?.('simulate');
@@ -261,7 +263,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   // The bounce view shows the driver pin and the receiver: simulate them even when no probe is there.
   const views = plan.views.includes('bounce') ? await import('../views/bounce.js') : undefined;
   // Every receiver is measured: a branched net gets a probe at each receiver that has none.
-  const simNet = withReceiverProbes(views ? views.withEndProbes(net) : net);
+  const simNet = withReceiverProbes(views ? views.withEndProbes(net, options.path) : net);
   const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap || options.explore ? {} : undefined });
   const simSeconds = (performance.now() - t1) / 1000;
   const record = selectProbes(result.record, net.probes.map((p) => p.name));
@@ -299,7 +301,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
 
   options.onPhase?.('render');
   const { drawViews } = await import('../views/draw.js');
-  const drawn = await drawViews({ net: simNet, result, record, views: plan.views, width: options.width, height: options.height, eye: options.eye });
+  const drawn = await drawViews({ net: simNet, result, record, views: plan.views, width: options.width, height: options.height, eye: options.eye, path: options.path });
   const files: OutputFile[] = drawn.map((d) => ({ path: d.file, data: d.png }));
   const frameFiles: OutputFile[] = [];
   let framesDir: string | undefined;

@@ -11,7 +11,10 @@ import { OKABE_ITO, THEME, type TraceStyle } from '../render/palette.js';
 import { encodePng, Surface, type Rect } from '../render/surface.js';
 import { formatSi } from '../render/ticks.js';
 import { idealiseForLattice, type Idealisation } from './idealise.js';
-import { latticeDiagram, type LatticeDiagram, type LatticeOptions, type LatticeResult } from './lattice.js';
+import { latticeDiagram, type LatticeDiagram, type LatticeResult } from './lattice.js';
+import { isBranched, mainReceiver } from '../../sim/route-tree.js';
+import { unknownPath } from './select.js';
+import { treeLatticeDiagram, type TreeLatticeOptions } from './tree-lattice.js';
 import {
   drawMessagePanel,
   drawTimeDownPanel,
@@ -48,6 +51,8 @@ export const BOUNCE_STYLE = {
   predicted: { color: OKABE_ITO.vermillion, width: 2, dash: [7, 5] } as TraceStyle,
   forward: { color: OKABE_ITO.blue, width: 2, dash: [] } as TraceStyle,
   backward: { color: OKABE_ITO.bluishGreen, width: 2, dash: [] } as TraceStyle,
+  /** A wave entering the drawn path from a branch. */
+  fromBranch: { color: OKABE_ITO.orange, width: 2, dash: [] } as TraceStyle,
 } as const;
 
 function uniqueName(taken: Set<string>, base: string): string {
@@ -55,14 +60,19 @@ function uniqueName(taken: Set<string>, base: string): string {
   for (let k = 2; ; k++) if (!taken.has(`${base}_${k}`)) return `${base}_${k}`;
 }
 
-/** Index of the first probe at the driver pin and at the receiver (−1 when there is none). */
-export function endProbeIndices(net: Net): { driver: number; receiver: number } {
-  return { driver: net.probes.findIndex((p) => p.at === 'driver'), receiver: net.probes.findIndex((p) => p.at === 'receiver' && p.receiver === undefined) };
+/**
+ * Index of the first probe at the driver pin and at the receiver (−1 when there is none); `receiver`
+ * names the receiver (default the main one).
+ */
+export function endProbeIndices(net: Net, receiver?: string): { driver: number; receiver: number } {
+  const main = mainReceiver(net).name;
+  const atReceiver = (p: ProbeSpec) => p.at === 'receiver' && (p.receiver ?? main) === (receiver ?? main);
+  return { driver: net.probes.findIndex((p) => p.at === 'driver'), receiver: net.probes.findIndex(atReceiver) };
 }
 
-/** The net with a probe at the driver pin and one at the receiver added where it has none. */
-export function withEndProbes(net: Net): Net {
-  const ends = endProbeIndices(net);
+/** The net with a probe at the driver pin and one at the receiver (default the main one) added where it has none. */
+export function withEndProbes(net: Net, receiver?: string): Net {
+  const ends = endProbeIndices(net, receiver);
   if (ends.driver >= 0 && ends.receiver >= 0) return net;
   const taken = new Set(net.probes.map((p) => p.name));
   const probes: ProbeSpec[] = [...net.probes];
@@ -71,7 +81,10 @@ export function withEndProbes(net: Net): Net {
     taken.add(name);
     probes.push({ name, at: 'driver' });
   }
-  if (ends.receiver < 0) probes.push({ name: uniqueName(taken, 'receiver'), at: 'receiver' });
+  if (ends.receiver < 0) {
+    const main = receiver === undefined || receiver === mainReceiver(net).name;
+    probes.push(main ? { name: uniqueName(taken, 'receiver'), at: 'receiver' } : { name: uniqueName(taken, receiver), at: 'receiver', receiver });
+  }
   return { ...net, probes };
 }
 
@@ -93,6 +106,8 @@ export function bounceLabels(d: LatticeDiagram): BounceLabels {
     if (b.kind === 'load') return `receiver  Γ = ${signed(b.gammaFromLeft!)}`;
     return `${b.items.length ? b.items.join(', ') : 'junction'}  Γ→ ${signed(b.gammaFromLeft!)}  Γ← ${signed(b.gammaFromRight!)}`;
   });
+  const branchNote = (b: (typeof d.boundaries)[number]) =>
+    b.branches?.length ? ` (${b.branches.map((x) => `'${x}'`).join(', ')} leave${b.branches.length === 1 ? 's' : ''} here, taken with their Z0 in parallel)` : '';
   const L = d.launch;
   const z0 = d.segments[0].z0;
   const formulas: string[] = [];
@@ -109,6 +124,7 @@ export function bounceLabels(d: LatticeDiagram): BounceLabels {
         ` at ${formatSi(L.time, 's', 3)} (the step's 50 % point).`,
     );
   }
+  if (src.branches?.length) formulas.push(`At the driver pin${branchNote(src)}: R is what the first line sees there, with the other lines as their Z0.`);
   formulas.push(
     `Driver end: Γ = (R − Z0)/(R + Z0) = (${ohms(src.zFromRight!)} − ${ohms(z0)}) / (${ohms(src.zFromRight!)} + ${ohms(z0)}) = ${signed(src.gammaFromRight!)}.`,
   );
@@ -117,7 +133,7 @@ export function bounceLabels(d: LatticeDiagram): BounceLabels {
     const zl = d.segments[k - 1].z0, zr = d.segments[k].z0;
     const what = b.items.length ? `'${b.items.join("', '")}'` : `'${d.segments[k - 1].name}' → '${d.segments[k].name}'`;
     formulas.push(
-      `Junction ${what} at ${formatSi(b.position, 'm', 3)} (${ohms(zl)} → ${ohms(zr)}): from the left Z = ${ohms(b.zFromLeft!)}, Γ = ${signed(b.gammaFromLeft!)}, ` +
+      `Junction ${what}${branchNote(b)} at ${formatSi(b.position, 'm', 3)} (${ohms(zl)} → ${ohms(zr)}): from the left Z = ${ohms(b.zFromLeft!)}, Γ = ${signed(b.gammaFromLeft!)}, ` +
         `τ = ${b.tauLeftToRight!.toFixed(3)}; from the right Z = ${ohms(b.zFromRight!)}, Γ = ${signed(b.gammaFromRight!)}, τ = ${b.tauRightToLeft!.toFixed(3)}.`,
     );
   }
@@ -128,6 +144,14 @@ export function bounceLabels(d: LatticeDiagram): BounceLabels {
       ? `Receiver end: open, Γ = +1.`
       : `Receiver end: Γ = (${ohms(ld.zFromLeft!)} − ${ohms(zL)}) / (${ohms(ld.zFromLeft!)} + ${ohms(zL)}) = ${signed(ld.gammaFromLeft!)}.`,
   );
+  if (d.sideArrivals?.length) {
+    formulas.push(
+      `Path to '${d.path!.receiver}' of the receivers ${d.path!.receivers.map((r) => `'${r}'`).join(', ')} (--path to choose another); every line's waves are followed, those on this path drawn; ` +
+        `${d.sideArrivals.length} wave${d.sideArrivals.length === 1 ? '' : 's'} enter${d.sideArrivals.length === 1 ? 's' : ''} it from the branches (an orange dot where one sends at least ${100 * SIDE_MARK_SHARE} % of V⁺ into the path, with what it sends).`,
+    );
+  } else if (d.path) {
+    formulas.push(`Path to '${d.path.receiver}' of the receivers ${d.path.receivers.map((r) => `'${r}'`).join(', ')} (--path to choose another); no wave from a branch reaches it in the time shown.`);
+  }
   const many = d.edges.length > 1;
   if (many) formulas.push(`Each of the ${d.edges.length} edges launches its own wave, V⁺ in proportion to its step; the waves add up.`);
   formulas.push(
@@ -144,7 +168,9 @@ export interface BounceInput {
   result: SimResult;
   width?: number;
   height?: number;
-  lattice?: LatticeOptions;
+  lattice?: TreeLatticeOptions;
+  /** The receiver whose path a branched net's lattice follows (default the main receiver). */
+  path?: string;
 }
 
 export interface BounceLayout {
@@ -163,17 +189,23 @@ export interface BounceLayout {
  * The lattice the bounce view draws for `net` over `duration`: of the net itself when the lattice
  * describes it exactly, else of its idealisation (idealise.ts), or the reasons it is not drawn.
  */
-export function bounceLattice(net: Net, duration: number, options: LatticeOptions = {}): { diagram: LatticeResult; idealisation: Idealisation } {
+export function bounceLattice(net: Net, duration: number, options: TreeLatticeOptions = {}): { diagram: LatticeResult; idealisation: Idealisation } {
   const idealisation = idealiseForLattice(net, duration);
-  if (idealisation.refusals.length) return { diagram: { supported: false, reasons: idealisation.refusals }, idealisation };
-  return { diagram: latticeDiagram(idealisation.net, { horizon: idealisation.horizon, edges: idealisation.edges, ...options }), idealisation };
+  const unknown = unknownPath(net, options.path);
+  const refusals = [...idealisation.refusals, ...(unknown ? [unknown] : [])];
+  if (refusals.length) return { diagram: { supported: false, reasons: refusals }, idealisation };
+  const opts = { horizon: idealisation.horizon, edges: idealisation.edges, ...options };
+  const diagram = isBranched(net) ? treeLatticeDiagram(idealisation.net, opts) : latticeDiagram(idealisation.net, opts);
+  return { diagram, idealisation };
 }
 
 /** Draw the bounce view into `area` of `s`. */
 export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLayout {
   const { net, result } = input;
   const duration = result.discretization.duration;
-  const { diagram, idealisation } = bounceLattice(net, duration, input.lattice);
+  const { diagram, idealisation } = bounceLattice(net, duration, { ...input.lattice, ...(input.path !== undefined ? { path: input.path } : {}) });
+  const pathName = input.path ?? mainReceiver(net).name;
+  const branched = isBranched(net);
   const idealised = diagram.supported && idealisation.notes.length > 0;
   const labels = diagram.supported ? bounceLabels(diagram) : undefined;
   const pad = 16;
@@ -216,20 +248,20 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
   const topReserve = 2 * lineStep(s, TYPE.marker, 6) + 4;
   const time: [number, number] = [0, diagram.supported ? Math.min(duration, diagram.horizon) : duration];
 
-  const ends = endProbeIndices(net);
+  const ends = endProbeIndices(net, pathName);
   const sidePanel = (which: 'driver' | 'receiver', x: number): Frame => {
     const idx = ends[which];
     const trace = idx >= 0 ? probeTrace(result.record, idx) : undefined;
     const name = idx >= 0 ? net.probes[idx].name : undefined;
     const levels = diagram.supported ? [{ steps: diagram.plateaus[which], style: BOUNCE_STYLE.predicted }] : [];
     const f = drawTimeDownPanel(s, { x, y: body.y, w: sideW, h: body.h }, {
-      title: which === 'driver' ? 'Driver pin' : 'Receiver',
+      title: which === 'driver' ? 'Driver pin' : branched ? `Receiver '${pathName}'` : 'Receiver',
       subtitle: name ? `probe '${name}'` : 'no probe here',
       time,
       traces: trace ? [{ values: trace, dt: result.record.dtSample, style: BOUNCE_STYLE.simulated }] : [],
       levels,
       topReserve,
-      emptyText: `The scenario has no probe at the ${which === 'driver' ? 'driver pin' : 'receiver'}; simulate withEndProbes(net) to show it.`,
+      emptyText: `The scenario has no probe at the ${which === 'driver' ? 'driver pin' : 'receiver'}; simulate withEndProbes(net${branched ? ', receiver' : ''}) to show it.`,
     });
     if (diagram.supported) labelPlateaus(s, f, diagram.plateaus[which]);
     return f;
@@ -268,6 +300,7 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
   const legend: [string, TraceStyle][] = [['simulated', BOUNCE_STYLE.simulated]];
   if (diagram.supported) {
     legend.push(['lattice prediction', BOUNCE_STYLE.predicted], ['wave towards the receiver', BOUNCE_STYLE.forward], ['wave towards the driver', BOUNCE_STYLE.backward]);
+    if (diagram.sideArrivals?.length) legend.push(['wave arriving from a branch (dot)', BOUNCE_STYLE.fromBranch]);
   }
   for (const [name, st] of legend) {
     const yc = y + legendH / 2 - 4;
@@ -315,12 +348,15 @@ function labelPlateaus(s: Surface, f: Frame, plateaus: readonly { from: number; 
   }
 }
 
+/** Waves from a branch are marked when they send at least this share of |V⁺| into the path. */
+export const SIDE_MARK_SHARE = 0.02;
+
 function drawLattice(s: Surface, area: Rect, d: LatticeDiagram, labels: BounceLabels, time: [number, number], topReserve: number): Frame {
   const L = d.segments[d.segments.length - 1].to;
   const frameSpec: FrameSpec = {
     title: 'Lattice diagram',
     subtitle: `${d.waves.length} waves; amplitudes of each wave printed on it`,
-    x: { label: 'Distance from the driver pin', unit: 'm', domain: [0, L] },
+    x: { label: d.path ? `Distance from the driver pin along the path to '${d.path.receiver}'` : 'Distance from the driver pin', unit: 'm', domain: [0, L] },
     y: timeDownAxis(time),
     topReserve,
   };
@@ -350,6 +386,22 @@ function drawLattice(s: Surface, area: Rect, d: LatticeDiagram, labels: BounceLa
       alpha: 0.92,
     });
   });
+  // waves entering the path from a branch: a dot where they arrive, with what they send into the path
+  for (const a of d.sideArrivals ?? []) {
+    if (a.time > time[1] || Math.max(Math.abs(a.towardsDriver), Math.abs(a.towardsReceiver)) < SIDE_MARK_SHARE * Math.abs(d.launch.amplitude)) continue;
+    const xa = f.x.map(a.position), ya = f.y.map(a.time);
+    s.fillCircle(xa, ya, 4, BOUNCE_STYLE.fromBranch.color);
+    const align = a.position >= (d.segments[d.segments.length - 1].to * 2) / 3 ? 'right' : 'left';
+    const { towardsDriver: back, towardsReceiver: on } = a;
+    const sent = back === 0 ? `${signedVolts(on)} →` : on === 0 ? `← ${signedVolts(back)}` : Math.abs(back - on) <= 1e-9 * Math.abs(on) ? `${signedVolts(on)} each way` : `← ${signedVolts(back)}, ${signedVolts(on)} →`;
+    placeBoxedText(s, placer, `${sent} from '${a.from}'`, xa + (align === 'left' ? 7 : -7), ya, {
+      size: 11,
+      color: BOUNCE_STYLE.fromBranch.color,
+      align,
+      baseline: 'middle',
+      alpha: 0.92,
+    });
+  }
   drawFrameForeground(s, f, frameSpec);
 
   // The band above the plot: segments (name, Z0, delay) nearest the plot, boundaries above them.

@@ -27,6 +27,8 @@ export interface DrawViewsInput {
   height?: number;
   /** Eye options: probe (default: the receiver probe), thresholds (default: the scenario's), sampling phase. */
   eye?: EyeViewOptions;
+  /** The receiver whose path the bounce view follows on a branched net (default: the main receiver). */
+  path?: string;
 }
 
 export interface EyeViewOptions {
@@ -83,7 +85,7 @@ export async function drawViews(input: DrawViewsInput): Promise<DrawnView[]> {
       }
       case 'bounce': {
         const { renderBounce } = await import('./bounce.js');
-        png = await renderBounce({ title: net.title, net, result, ...size });
+        png = await renderBounce({ title: net.title, net, result, ...size, ...(input.path !== undefined ? { path: input.path } : {}) });
         break;
       }
       case 'eye': {

@@ -22,7 +22,7 @@
 import { attenuationDbPerM, losslessZ0 } from '../../sim/lines/freq-model.js';
 import { DB_PER_NEPER } from '../../sim/lines/constants.js';
 import type { Net, Part, RouteItem, Signal } from '../../sim/model.js';
-import { isBranched, isMultiNet } from '../../sim/route-tree.js';
+import { allItems, isBranched, isMultiNet } from '../../sim/route-tree.js';
 import { fastestEdge as fastestEdgeOf, rampDuration } from '../../sim/signals.js';
 import type { SourceEdge } from './lattice.js';
 import { formatSi } from '../render/ticks.js';
@@ -177,6 +177,79 @@ function idealisePart(where: string, p: Part, rEnv: number, roundTrip: number, w
   return { part, note: notes.length ? `${where}: ${notes.join('; ')}.` : undefined };
 }
 
+/** The longest one-way delay along the tree from its start to a receiver (s). */
+function longestDelay(route: readonly RouteItem[], lines: ReadonlyMap<string, LineView>): number {
+  let td = 0;
+  let longest = 0;
+  for (const it of route) {
+    if (it.kind === 'line') td += lines.get(it.name)?.delay ?? 0;
+    else if (it.kind === 'branch') for (const b of it.branches) longest = Math.max(longest, td + longestDelay(b.route, lines));
+  }
+  return Math.max(longest, td);
+}
+
+type Verdict = (where: string, p: Part, rEnv: number) => Part | null | undefined;
+
+/**
+ * The route with each reactive part idealised, lines made lossless; a branch's side routes likewise,
+ * their receivers' parts too. `zBefore` is what lies before the route's first line (the driver's
+ * resistance, or at a branch point the line before it); returns the Z0 of the route's last line.
+ */
+function idealRoute(
+  items: readonly RouteItem[],
+  zBefore: number,
+  lines: ReadonlyMap<string, LineView>,
+  verdict: Verdict,
+  refusals: string[],
+  receiverParts: (parts: readonly Part[], zLast: number, name: string) => Part[],
+): { route: RouteItem[]; zEnd: number } {
+  const zLeftOf = (i: number): number => {
+    for (let k = i - 1; k >= 0; k--) {
+      const it = items[k];
+      if (it.kind === 'line' && lines.has(it.name)) return lines.get(it.name)!.z0;
+    }
+    return zBefore;
+  };
+  const zRightOf = (i: number): number => {
+    for (let k = i + 1; k < items.length; k++) {
+      const it = items[k];
+      if (it.kind === 'line' && lines.has(it.name)) return lines.get(it.name)!.z0;
+    }
+    return Infinity;
+  };
+  const route: RouteItem[] = [];
+  items.forEach((it, i) => {
+    if (it.kind === 'line') {
+      const view = lines.get(it.name);
+      if (!view || !lineIsLossy(it)) route.push(it);
+      else {
+        const { l, c } = losslessLine(it);
+        route.push({ kind: 'line', name: it.name, length: it.length, line: { r: 0, g: 0, l, c } });
+      }
+    } else if (it.kind === 'series') {
+      const p = verdict(`series part '${it.name}'`, it.part, zLeftOf(i) + zRightOf(i));
+      // an open series part would cut the route: the lattice then has nothing to show past it
+      if (p === null) refusals.push(`series part '${it.name}' looks like an open on this time scale: no wave passes it`);
+      else if (p) route.push({ ...it, part: p });
+    } else if (it.kind === 'shunt') {
+      const env = parallel(zLeftOf(i), zRightOf(i));
+      const parts: Part[] = [];
+      it.parts.forEach((p, k) => {
+        const q = verdict(it.parts.length > 1 ? `part ${k + 1} of shunt '${it.name}'` : `shunt '${it.name}'`, p, env);
+        if (q) parts.push(q);
+      });
+      if (parts.length) route.push({ ...it, parts });
+    } else {
+      const branches = it.branches.map((b) => {
+        const side = idealRoute(b.route, zLeftOf(i), lines, verdict, refusals, receiverParts);
+        return { route: side.route, receiver: { name: b.receiver.name, parts: receiverParts(b.receiver.parts, side.zEnd, b.receiver.name) } };
+      });
+      route.push({ ...it, branches });
+    }
+  });
+  return { route, zEnd: zLeftOf(items.length) };
+}
+
 const parallel = (a: number, b: number) => (a === Infinity ? b : b === Infinity ? a : (a * b) / (a + b));
 
 /**
@@ -192,23 +265,20 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
   if (isMultiNet(net)) {
     return { net, notes, refusals: ['the scenario has several nets: the lattice is drawn along one net without coupled sections (crosstalk is not drawn as a lattice)'], edges: sig.edges, horizon: duration };
   }
-  if (isBranched(net)) {
-    return { net, notes, refusals: ['the route branches: the lattice is drawn along one unbranched route (a lattice along one path of a tree is not done yet)'], edges: sig.edges, horizon: duration };
-  }
   const rise = fastestEdgeOf(net.driver.signal);
   const window = Math.max(0, duration - sig.edges[0].time);
 
-  // Lines: lossless, and the route's delay.
+  // Lines: lossless, and the longest delay to a receiver.
   const lines = new Map<string, LineView>();
-  let td = 0;
   const lossy: Extract<RouteItem, { kind: 'line' }>[] = [];
-  for (const it of net.route) {
+  for (const it of allItems(net.route)) {
     if (it.kind !== 'line' || !(it.length > 0)) continue;
     const { l, c } = losslessLine(it);
     lines.set(it.name, { z0: Math.sqrt(l / c), delay: it.length * Math.sqrt(l * c) });
-    td += it.length * Math.sqrt(l * c);
     if (lineIsLossy(it)) lossy.push(it);
   }
+  // the longest one-way delay from the driver pin to a receiver (the whole route without branches)
+  const td = longestDelay(net.route, lines);
   if (lines.size === 0) return { net, notes, refusals: ['the route has no line segment: there is nothing for waves to travel on'], edges: sig.edges, horizon: duration };
   const roundTrip = 2 * td;
   if (lossy.length) {
@@ -231,22 +301,6 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
   }
 
   // Parts: each reactive one replaced by an open or a short.
-  const rs = net.driver.resistance;
-  const route: RouteItem[] = [];
-  const zLeftOf = (i: number): number => {
-    for (let k = i - 1; k >= 0; k--) {
-      const it = net.route[k];
-      if (it.kind === 'line' && lines.has(it.name)) return lines.get(it.name)!.z0;
-    }
-    return rs;
-  };
-  const zRightOf = (i: number): number => {
-    for (let k = i + 1; k < net.route.length; k++) {
-      const it = net.route[k];
-      if (it.kind === 'line' && lines.has(it.name)) return lines.get(it.name)!.z0;
-    }
-    return Infinity;
-  };
   const verdict = (where: string, p: Part, rEnv: number): Part | null | undefined => {
     if (p.c === undefined && !(p.l > 0)) return p;
     const v = idealisePart(where, p, rEnv, roundTrip, window);
@@ -257,35 +311,17 @@ export function idealiseForLattice(net: Net, duration: number): Idealisation {
     if (v.note) notes.push(v.note);
     return v.part;
   };
-  net.route.forEach((it, i) => {
-    if (it.kind === 'line') {
-      const view = lines.get(it.name);
-      if (!view || !lineIsLossy(it)) route.push(it);
-      else {
-        const { l, c } = losslessLine(it);
-        route.push({ kind: 'line', name: it.name, length: it.length, line: { r: 0, g: 0, l, c } });
-      }
-    } else if (it.kind === 'series') {
-      const p = verdict(`series part '${it.name}'`, it.part, zLeftOf(i) + zRightOf(i));
-      // an open series part would cut the route: the lattice then has nothing to show past it
-      if (p === null) refusals.push(`series part '${it.name}' looks like an open on this time scale: no wave passes it`);
-      else if (p) route.push({ ...it, part: p });
-    } else if (it.kind === 'shunt') {
-      const env = parallel(zLeftOf(i), zRightOf(i));
-      const parts: Part[] = [];
-      it.parts.forEach((p, k) => {
-        const q = verdict(it.parts.length > 1 ? `part ${k + 1} of shunt '${it.name}'` : `shunt '${it.name}'`, p, env);
-        if (q) parts.push(q);
-      });
-      if (parts.length) route.push({ ...it, parts });
-    }
-  });
-  const zLast = zLeftOf(net.route.length);
-  const receiver: Part[] = [];
-  net.receiver.forEach((p, k) => {
-    const q = verdict(net.receiver.length > 1 ? `the receiver's part ${k + 1}` : 'the receiver', p, zLast);
-    if (q) receiver.push(q);
-  });
+  const receiverParts = (parts: readonly Part[], zLast: number, name: string | undefined): Part[] => {
+    const out: Part[] = [];
+    const who = name === undefined ? 'the receiver' : `receiver '${name}'`;
+    parts.forEach((p, k) => {
+      const q = verdict(parts.length > 1 ? `${who}'s part ${k + 1}` : who, p, zLast);
+      if (q) out.push(q);
+    });
+    return out;
+  };
+  const { route, zEnd } = idealRoute(net.route, net.driver.resistance, lines, verdict, refusals, receiverParts);
+  const receiver = receiverParts(net.receiver, zEnd, isBranched(net) ? (net.receiverName ?? 'receiver') : undefined);
 
   const changed = net.driver.signal.kind !== 'step' || notes.length > 0;
   const ideal: Net = changed ? { ...net, driver: { ...net.driver, signal: sig.first }, route, receiver } : net;

@@ -75,6 +75,8 @@ export interface LatticeBoundary {
   /** Transmission coefficient into the next segment, left → right and right → left (junctions). */
   tauLeftToRight?: number;
   tauRightToLeft?: number;
+  /** Lines of other paths that meet here (a branched net's junction, drawn along one path). */
+  branches?: string[];
 }
 
 export interface LatticeWave {
@@ -101,6 +103,19 @@ export interface LatticeArrival {
   reflected: number;
   /** 0 at the ends. */
   transmitted: number;
+}
+
+/** A wave reaching the drawn path from a line off it (a branched net): what it sends into the path. */
+export interface SideArrival {
+  time: number;
+  boundary: number;
+  position: number;
+  /** The line it came along. */
+  from: string;
+  incident: number;
+  /** The waves it launches into the path's lines there: towards the driver, towards the receiver (0 at an end). */
+  towardsDriver: number;
+  towardsReceiver: number;
 }
 
 /** A constant level from `from` to `to` (s); `to` is the next change or the horizon. */
@@ -140,6 +155,10 @@ export interface LatticeDiagram {
   horizon: number;
   /** True when the wave count or bounce limit cut the list before the horizon. */
   truncated: boolean;
+  /** A branched net: the receiver whose path is drawn, and every receiver (main first). */
+  path?: { receiver: string; receivers: string[] };
+  /** A branched net: waves entering the drawn path from the lines off it. */
+  sideArrivals?: SideArrival[];
 }
 
 export interface DcLevels {
@@ -194,7 +213,7 @@ export function latticeLimitations(net: Net): string[] {
   });
   if (lines === 0) reasons.push('the route has no line segment: there is nothing for waves to travel on');
   if (isMultiNet(net)) reasons.push('the scenario has several nets: this view draws one net without coupled sections');
-  if (isBranched(net)) reasons.push('the route branches: this view draws one unbranched route (branched nets are not drawn yet)');
+  if (isBranched(net)) reasons.push('the route branches: this function follows one unbranched route (treeLatticeDiagram follows one path of a tree)');
   return reasons;
 }
 
@@ -596,13 +615,14 @@ function snapResidue(p: { driver: Plateau[]; receiver: Plateau[] }): { driver: P
 }
 
 /** A step at an end: time, increment of the line-side voltage, increment of the source voltage. */
-type Step = [number, number, number];
+export type PlateauStep = [number, number, number];
+type Step = PlateauStep;
 
 /**
  * Steps → plateaus of `level(line voltage, source voltage change)`, starting with the level before
  * the first step (`initial`) from t = 0. Steps at the same time are merged.
  */
-function toPlateaus(steps: readonly Step[], horizon: number, level: (line: number, src: number) => number, initial: number): Plateau[] {
+export function toPlateaus(steps: readonly Step[], horizon: number, level: (line: number, src: number) => number, initial: number): Plateau[] {
   const out: Plateau[] = [];
   let t = 0;
   let line = 0;

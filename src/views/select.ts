@@ -9,6 +9,15 @@ import type { Net } from '../../sim/model.js';
 import { netItems } from '../../sim/route-tree.js';
 import { eyeUnavailableReason } from './eye.js';
 import { idealiseForLattice } from './idealise.js';
+import { UsageError } from '../exit-codes.js';
+import { allReceivers } from '../../sim/route-tree.js';
+
+/** Why `path` names no receiver of the net (null when it does, or is not given). */
+export function unknownPath(net: Net, path: string | undefined): string | null {
+  if (path === undefined) return null;
+  const names = allReceivers(net).map((r) => r.name);
+  return names.includes(path) ? null : `--path '${path}': no receiver of that name (receivers: ${names.join(', ')})`;
+}
 
 export const VIEW_NAMES = ['waveforms', 'map', 'bounce', 'eye'] as const;
 export type ViewName = (typeof VIEW_NAMES)[number];
@@ -102,7 +111,9 @@ export function routeMapUnavailableReason(net: Net): string | null {
 }
 
 /** The views a scenario gets out of the requested ones, and what the simulation must record for them. */
-export function planViews(net: Net, requested: readonly ViewName[], frames = 0): ViewPlan {
+export function planViews(net: Net, requested: readonly ViewName[], frames = 0, path?: string): ViewPlan {
+  const unknown = unknownPath(net, path);
+  if (unknown) throw new UsageError(unknown);
   const views: ViewName[] = [];
   const skipped: ViewPlan['skipped'] = [];
   const partial: ViewPlan['partial'] = [];

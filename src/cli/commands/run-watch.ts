@@ -55,6 +55,7 @@ export async function watchRun(file: string, outDir: string, opts: RunCommandOpt
         views: chosen.views,
         frames: chosen.frames,
         report: opts.report,
+        path: opts.path,
         onPhase: (phase) => {
           release?.();
           release = phase === 'write' && ctx.guardWrites ? ctx.guardWrites() : undefined;

@@ -1,4 +1,4 @@
-// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--frames N] [--report] [--explore] [--watch [--port N]]`
+// `ladderwave run SCENARIO... [--out DIR] [--quiet] [--force] [--views LIST] [--path RECEIVER] [--frames N] [--report] [--explore] [--watch [--port N]]`
 import type { Command } from 'commander';
 import { basename, extname, join, resolve } from 'node:path';
 import { runScenarioFile } from '../../index.js';
@@ -30,6 +30,8 @@ export interface RunCommandOptions {
   watch?: boolean;
   /** Port for --watch, as typed (default 0: any free port). */
   port?: string;
+  /** The receiver whose path the bounce view follows on a branched net. */
+  path?: string;
 }
 
 /** The views and frame count asked for on the command line; throws UsageError on a bad value. */
@@ -104,6 +106,7 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
         frames: chosen.frames,
         report: opts.report,
         explore: opts.explore,
+        path: opts.path,
         onPhase: (phase) => {
           if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
         },
@@ -156,6 +159,7 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
     .option('-f, --force', 'run even if the run would exceed a size limit')
     .option('--cross-check', 'also solve the net with the independent spectral solver: print the largest difference per probe (% of swing), write crosscheck.png and a crossCheck section in summary.json')
     .option('--views <list>', `views to draw, comma-separated from ${VIEW_NAMES.join(', ')} or all (default ${DEFAULT_RUN_VIEWS.join(',')})`)
+    .option('--path <receiver>', 'on a branched net, the receiver whose path from the driver pin the bounce view follows (default: the main receiver)')
     .option('--frames <n>', 'also write N PNG frames of the voltage along the route to frames/')
     .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')
     .option('--ignore-checks', 'print the check verdicts but exit 0 even when a check fails')

@@ -158,3 +158,70 @@ describe('drawing', () => {
     expect([img.width, img.height]).toEqual([1400, 900]);
   });
 });
+
+describe('a branched net: the lattice along one path', () => {
+  // A 40 mm open stub off a matched 50 Ω line: the tap sees 50 ∥ 50 = 25 Ω, Γ = −1/3 and 2/3 onward
+  // (Pozar, Microwave Engineering, ch. 2); the stub's open end returns its 2/3·V⁺ share, of which the
+  // tap sends 2/3 again each way: 4/9·V⁺ into the path a stub round trip later.
+  const tpd = 6.25e-9;
+  const stubNet = (receiverPart = part({ r: 50 })): Net =>
+    net({
+      signal: stepSignal(1.2, 60e-12, 0.2e-9),
+      rs: 50,
+      route: [
+        { kind: 'line', name: 'near', line: lineOf(50, tpd), length: 0.03 },
+        { kind: 'branch', name: 'tap', branches: [{ route: [{ kind: 'line', name: 'stub', line: lineOf(50, tpd), length: 0.04 }], receiver: { name: 'tp', parts: [] } }] },
+        { kind: 'line', name: 'far', line: lineOf(50, tpd), length: 0.05 },
+      ],
+      receiver: [receiverPart],
+      receiverName: 'radio',
+      probes: [{ name: 'tx', at: 'driver' }, { name: 'radio', at: 'receiver' }, { name: 'tp', at: 'receiver', receiver: 'tp' }],
+      duration: 2.5e-9,
+    });
+
+  it('follows the main path by default and marks the stub’s returning wave where it enters it', () => {
+    const n = stubNet();
+    const s = new Surface(1500, 950);
+    const lay = drawBounce(s, { x: 0, y: 0, w: 1500, h: 950 }, { title: 'stub', net: n, result: simulate(n) });
+    if (!lay.diagram.supported) throw new Error(lay.diagram.reasons.join());
+    const d = lay.diagram;
+    expect(d.path).toEqual({ receiver: 'radio', receivers: ['radio', 'tp'] });
+    expect(d.segments.map((x) => x.name)).toEqual(['near', 'far']);
+    expect(d.boundaries[1].branches).toEqual(['stub']);
+    const first = d.sideArrivals![0];
+    expect(first.from).toBe('stub');
+    expect(first.time).toBeCloseTo(0.2e-9 + 0.0375e-9 + 0.03 * tpd + 2 * 0.04 * tpd, 15);
+    expect(first.towardsReceiver).toBeCloseTo((4 / 9) * 0.6, 12);
+    expect(first.towardsDriver).toBeCloseTo((4 / 9) * 0.6, 12);
+    // the dot is drawn in the branch colour at the tap, at that time
+    const img = PNG.sync.read(encodePng(s));
+    const i = (Math.round(lay.lattice!.y.map(first.time)) * img.width + Math.round(lay.lattice!.x.map(first.position))) * 4;
+    const want = hexToRgb(BOUNCE_STYLE.fromBranch.color);
+    expect([img.data[i], img.data[i + 1], img.data[i + 2]].every((v, k) => Math.abs(v - want[k]) < 40)).toBe(true);
+  });
+
+  it('--path draws the path to another receiver, with that receiver’s probe beside it', () => {
+    const n = stubNet();
+    const s = new Surface(1500, 950);
+    const lay = drawBounce(s, { x: 0, y: 0, w: 1500, h: 950 }, { title: 'stub', net: n, result: simulate(n), path: 'tp' });
+    if (!lay.diagram.supported) throw new Error(lay.diagram.reasons.join());
+    expect(lay.diagram.segments.map((x) => x.name)).toEqual(['near', 'stub']);
+    // the open stub end doubles what reaches it: 2/3·V⁺·2 = 0.8 V
+    expect(lay.diagram.plateaus.receiver.find((p) => p.value > 0)!.value).toBeCloseTo(0.8, 12);
+    expect(endProbeIndices(n, 'tp').receiver).toBe(2);
+    expect(withEndProbes(stubNet(), 'tp').probes.length).toBe(3);
+  });
+
+  it('idealises each branch receiver on its own and refuses with every reason where it must', () => {
+    // 0.2 pF behind 50 Ω: τ = 10 ps, far below a fifth of the 1.1 ns round trip → an open
+    const small = stubNet(part({ c: 0.2e-12 }));
+    const a = drawBounce(new Surface(1500, 950), { x: 0, y: 0, w: 1500, h: 950 }, { title: 'small C', net: small, result: simulate(small) });
+    expect(a.diagram.supported).toBe(true);
+    expect(a.idealisation.notes.join()).toMatch(/receiver 'radio' \(C 200 fF; τ ≈ 10 ps.*taken as an open/);
+    // 10 pF: τ = 500 ps, comparable to the round trip → no lattice, the reason printed
+    const big = stubNet(part({ c: 10e-12 }));
+    const b = drawBounce(new Surface(1500, 950), { x: 0, y: 0, w: 1500, h: 950 }, { title: 'big C', net: big, result: simulate(big) });
+    expect(b.lattice).toBeUndefined();
+    if (!b.diagram.supported) expect(b.diagram.reasons.join()).toMatch(/receiver 'radio' \(C 10 pF; τ ≈ 500 ps/);
+  });
+});

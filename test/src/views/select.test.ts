@@ -25,3 +25,15 @@ describe('planViews', () => {
     expect(planViews(matched, ['bounce'], 0).partial).toEqual([]);
   });
 });
+
+describe('--path on a branched net', () => {
+  it('is a usage error naming the receivers when no receiver has that name', async () => {
+    const { planViews } = await import('../../../src/views/select.js');
+    const { UsageError } = await import('../../../src/exit-codes.js');
+    const { branch, line, lineOf, net, stepSignal } = await import('../../support/nets.js');
+    const n = net({ signal: stepSignal(1, 1e-10), rs: 50, route: [line('a', lineOf(50, 5e-9), 0.1), branch('t', { route: [line('b', lineOf(50, 5e-9), 0.1)], receiver: 'rb' })] });
+    expect(() => planViews(n, ['bounce'], 0, 'rx9')).toThrow(UsageError);
+    expect(() => planViews(n, ['bounce'], 0, 'rx9')).toThrow(/--path 'rx9': no receiver of that name \(receivers: receiver, rb\)/);
+    expect(planViews(n, ['bounce'], 0, 'rb').views).toEqual(['bounce']);
+  });
+});
