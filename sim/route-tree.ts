@@ -93,3 +93,26 @@ export function receiverDelays(net: Net): Map<string, number> {
   walk(net.route, 0, mainReceiver(net));
   return out;
 }
+
+/**
+ * The route items from the driver pin to the receiver `name` (default the main one), in order: the
+ * main route's items up to the branch item where the path leaves it, then that branch's items, and
+ * so on; branch items on the way are kept (they mark the branch points). Null for an unknown name.
+ */
+export function routeToReceiver(net: Net, name?: string): RouteItem[] | null {
+  const main = mainReceiver(net).name;
+  if (name === undefined || name === main) return [...net.route];
+  const walk = (items: readonly RouteItem[]): RouteItem[] | null => {
+    for (let i = 0; i < items.length; i++) {
+      const it = items[i];
+      if (it.kind !== 'branch') continue;
+      for (const b of it.branches) {
+        if (b.receiver.name === name) return [...items.slice(0, i + 1), ...b.route];
+        const deeper = walk(b.route);
+        if (deeper) return [...items.slice(0, i + 1), ...deeper];
+      }
+    }
+    return null;
+  };
+  return walk(net.route);
+}

@@ -12,6 +12,8 @@ import { AdvisedRefusal } from '../engine-text.js';
 import { formatSI } from '../units.js';
 import { routeDelay } from '../../sim/discretize.js';
 import { readScenarioFile, writeOutputFolder, type LoadedScenario } from './run.js';
+import { unknownPath } from '../views/select.js';
+import { UsageError } from '../exit-codes.js';
 import { renderTdr, tdrCsv, tdrNet, tdrProfile, type TdrProfile } from '../views/tdr.js';
 
 export const TDR_FILES = { png: 'tdr.png', csv: 'tdr.csv' } as const;
@@ -32,6 +34,8 @@ export interface TdrRunOptions {
   rise?: number;
   /** Reference impedance (Ω); default 50 Ω (DEFAULT_TDR_Z0). */
   z0?: number;
+  /** On a branched net, the receiver whose path the distance follows (default: the main receiver). */
+  path?: string;
   force?: boolean;
   limits?: Partial<RunLimits>;
   width?: number;
@@ -54,6 +58,8 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
   const t0 = performance.now();
   options.onPhase?.('load');
   const scenario = await readScenarioFile(file);
+  const unknown = unknownPath(scenario.net, options.path);
+  if (unknown) throw new UsageError(unknown);
   const rise = options.rise ?? defaultTdrRise(scenario.net);
   const net = tdrNet(scenario.net, { rise, z0: options.z0 });
   if (!options.force) refuseWithAdvice(scenario.net, { rise, z0: options.z0 }, options.limits);
@@ -62,7 +68,7 @@ export async function runTdrFile(file: string, outDir: string, options: TdrRunOp
   const t1 = performance.now();
   const result = simulate(net, { force: options.force, limits: options.limits });
   const simSeconds = (performance.now() - t1) / 1000;
-  const profile = tdrProfile(net, result);
+  const profile = tdrProfile(net, result, options.path);
 
   options.onPhase?.('render');
   const png = await renderTdr({ title: net.title, profile, width: options.width, height: options.height });

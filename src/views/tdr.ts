@@ -20,7 +20,9 @@ import { NetError } from '../../sim/errors.js';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { Net } from '../../sim/model.js';
 import { probeTrace, type SimResult } from '../../sim/result.js';
-import { isBranched, isMultiNet } from '../../sim/route-tree.js';
+import type { RouteItem } from '../../sim/model.js';
+import { allReceivers, isBranched, isMultiNet, mainReceiver, routeToReceiver } from '../../sim/route-tree.js';
+import { routeDelay } from '../../sim/discretize.js';
 import { rampDuration, signalFunction } from '../../sim/signals.js';
 import type { Frame } from '../render/frame.js';
 import { drawLinePlot } from '../render/lineplot.js';
@@ -45,10 +47,10 @@ export interface TdrOptions {
 /** Name of the probe tdrNet puts at the driver pin. */
 export const TDR_PROBE = 'tdr';
 
-function segmentsOf(net: Net) {
+function segmentsOf(items: readonly RouteItem[]) {
   const out: { name: string; from: number; to: number; z0: number; delay: number; velocity: number; resistance: number; lossy: boolean }[] = [];
   let x = 0;
-  for (const it of net.route) {
+  for (const it of items) {
     if (it.kind !== 'line') continue;
     if (it.length > 0) {
       const tpd = Math.sqrt(it.line.l * it.line.c);
@@ -73,15 +75,12 @@ export function tdrNet(net: Net, opts: TdrOptions): Net {
   if (isMultiNet(net)) {
     throw new NetError([{ path: 'nets', message: 'the TDR profile is drawn along one net; this scenario has several (a TDR of a coupled pair — differential and common-mode profiles — is not done yet)' }]);
   }
-  if (isBranched(net)) {
-    throw new NetError([{ path: 'route', message: 'the TDR profile is drawn along an unbranched route; this route branches (a profile along one path is not done yet)' }]);
-  }
-  const segs = segmentsOf(net);
   const z0 = opts.z0 ?? DEFAULT_TDR_Z0;
   if (!(z0 > 0) || !Number.isFinite(z0)) throw new RangeError(`tdrNet: z0 must be a positive resistance, got ${z0}`);
   const ramp = rampDuration(opts.rise);
   const start = ramp;
-  const roundTrip = 2 * segs.reduce((a, s) => a + s.delay, 0);
+  // every path's reflections come back within twice the longest delay to a receiver
+  const roundTrip = 2 * routeDelay(net);
   const margin = Math.max(10 * opts.rise, 0.25 * roundTrip);
   return {
     ...net,
@@ -110,7 +109,10 @@ export interface TdrSegment {
 
 export interface TdrPlace {
   name: string;
-  kind: 'series' | 'shunt' | 'junction' | 'receiver';
+  /** 'branch': a branch point where other paths leave the one read (`label` names their first lines). */
+  kind: 'series' | 'shunt' | 'junction' | 'receiver' | 'branch';
+  /** The marker's text when it is not `name`. */
+  label?: string;
   distance: number;
   /** Round-trip time (s). */
   time: number;
@@ -136,13 +138,32 @@ export interface TdrProfile {
   routeLength: number;
   /** Round-trip time to the receiver (s). */
   routeTime: number;
+  /** A branched net: the receiver whose path the distance follows, and every receiver (main first). */
+  path?: { receiver: string; receivers: string[] };
+}
+
+/** The lines (or receivers) that leave a path at branch item `at` when the path goes on to `next`. */
+function leavingAt(net: Net, at: RouteItem, next: RouteItem | undefined): string[] {
+  const first = (route: readonly RouteItem[], receiver: string) => route.find((r) => r.kind === 'line')?.name ?? receiver;
+  const out: string[] = [];
+  const walk = (route: readonly RouteItem[], receiver: string): void => {
+    route.forEach((it, i) => {
+      if (it === at && route[i + 1] !== next) out.push(first(route.slice(i + 1), receiver));
+      if (it.kind === 'branch') for (const b of it.branches) walk(b.route, b.receiver.name);
+    });
+  };
+  walk(net.route, mainReceiver(net).name);
+  if (at.kind === 'branch') for (const b of at.branches) if (b.route[0] !== next) out.push(first(b.route, b.receiver.name));
+  return out;
 }
 
 /**
  * The impedance profile of a TDR run (`net` as made by tdrNet, or any net driven by a step whose
  * source resistance is the reference, with a probe at the driver pin).
  */
-export function tdrProfile(net: Net, result: SimResult): TdrProfile {
+export function tdrProfile(net: Net, result: SimResult, path?: string): TdrProfile {
+  const items = routeToReceiver(net, path);
+  if (!items) throw new NetError([{ path: 'route', message: `no receiver named '${path}' (receivers: ${allReceivers(net).map((r) => r.name).join(', ')})` }]);
   const sig = net.driver.signal;
   if (sig.kind !== 'step') throw new Error(`tdrProfile: the net must be driven by a step (see tdrNet), not a ${sig.kind}`);
   const probe = net.probes.findIndex((p) => p.at === 'driver');
@@ -157,12 +178,12 @@ export function tdrProfile(net: Net, result: SimResult): TdrProfile {
   const incFinal = (sig.to - sig.from) / 2;
 
   // route geometry: segments with their round-trip times, and the places between them
-  const segs = segmentsOf(net);
+  const segs = segmentsOf(items);
   const segments: TdrSegment[] = [];
   const places: TdrPlace[] = [];
   let rt = 0;
   let x = 0;
-  for (const it of net.route) {
+  for (const it of items) {
     if (it.kind === 'line') {
       const s = segs.find((q) => q.name === it.name);
       if (s) {
@@ -173,11 +194,17 @@ export function tdrProfile(net: Net, result: SimResult): TdrProfile {
         rt += 2 * s.delay;
       }
       x += it.length;
-    } else if (it.kind !== 'branch') {
+    } else if (it.kind === 'branch') {
+      // the side routes that leave the path here, by their first line (or their receiver)
+      const side = leavingAt(net, it, items[items.indexOf(it) + 1]);
+      if (side.length) places.push({ name: it.name, kind: 'branch', label: `${it.name} ∥ ${side.join(', ')}`, distance: x, time: rt });
+    } else {
       places.push({ name: it.name, kind: it.kind, distance: x, time: rt });
     }
   }
-  places.push({ name: 'receiver', kind: 'receiver', distance: x, time: rt });
+  const branched = isBranched(net);
+  const receiver = path ?? mainReceiver(net).name;
+  places.push({ name: branched ? receiver : 'receiver', kind: 'receiver', distance: x, time: rt });
 
   const i0 = Math.max(0, Math.ceil(t50 / dt - 1e-9));
   const m = Math.max(0, n - i0);
@@ -214,6 +241,7 @@ export function tdrProfile(net: Net, result: SimResult): TdrProfile {
     places,
     routeLength: x,
     routeTime: rt,
+    ...(branched ? { path: { receiver, receivers: allReceivers(net).map((r) => r.name) } } : {}),
   };
 }
 
@@ -371,6 +399,20 @@ function placeLabel(s: Surface, mask: CurveMask, placer: LabelPlacer, text: stri
   return null;
 }
 
+/**
+ * The note a branched net's profile gets: which path the distance follows, and how to read a branch
+ * point. A step meeting lines in parallel reads their parallel Z0 (ρ = Γ of the junction, Pozar,
+ * Microwave Engineering, ch. 2) until the branch's own reflections return, mixed in with the path's.
+ */
+export function tdrPathNote(p: TdrProfile): string {
+  if (!p.path) return '';
+  const others = p.path.receivers.filter((r) => r !== p.path!.receiver);
+  return (
+    `Distance along the path to '${p.path.receiver}' (--path to follow ${others.length === 1 ? `'${others[0]}'` : `one of ${others.map((r) => `'${r}'`).join(', ')}`}). ` +
+    'At a branch point (marked "∥") the step meets the lines there in parallel and reads their parallel Z0; past it the reading mixes the branch\'s reflections with the path\'s.'
+  );
+}
+
 /** Two panels: impedance against distance (top) and against round-trip time (bottom), places marked. */
 export function drawTdr(
   s: Surface,
@@ -393,6 +435,7 @@ export function drawTdr(
       `Matched step source: ${formatSi(p.rise, 's', 3)} (10–90 %), R_S = Z_ref = ${formatSi(p.zRef, 'Ω', 3)}. ` +
         `Z = Z_ref·(1 + ρ)/(1 − ρ), ρ = reflected / incident wave at the driver pin; distance from the round-trip time at each segment's own velocity; later readings include multiple reflections of earlier places. ` +
         resText +
+        (p.path ? `\n${tdrPathNote(p)}` : '') +
         (lossNote ? `\n${lossNote}` : ''),
     );
   const yDomain = tdrImpedanceDomain(p);
@@ -404,7 +447,7 @@ export function drawTdr(
     p.places.map((pl) => ({
       axis: 'x' as const,
       at: at(pl),
-      label: pl.kind === 'junction' ? undefined : pl.name,
+      label: pl.kind === 'junction' ? undefined : (pl.label ?? pl.name),
       color: pl.kind === 'junction' ? '#5b6472' : '#2b2f38',
       dash: pl.kind === 'junction' ? [5, 4] : [],
     }));
@@ -430,7 +473,7 @@ export function drawTdr(
     labels.push(...mask.labels.map((l) => ({ panel: xs === p.distance ? ('distance' as const) : ('time' as const), ...l })));
     return f;
   };
-  const distance = panel(topArea, 'Impedance along the route', { label: 'Distance from the driver pin', unit: 'm', domain: [0, shownDist] }, p.distance, (pl) => pl.distance, (sg) => [sg.from, sg.to], p.routeLength);
+  const distance = panel(topArea, p.path ? `Impedance along the path to '${p.path.receiver}'` : 'Impedance along the route', { label: 'Distance from the driver pin', unit: 'm', domain: [0, shownDist] }, p.distance, (pl) => pl.distance, (sg) => [sg.from, sg.to], p.routeLength);
   const time = panel(botArea, 'Against round-trip time', { label: 'Round-trip time', unit: 's', domain: [0, shownTime] }, p.time, (pl) => pl.time, (sg) => [sg.timeFrom, sg.timeTo], p.routeTime);
   return { distance, time, lossNote, labels };
 }

@@ -1,9 +1,9 @@
-// `ladderwave tdr SCENARIO [--rise 35ps] [--z0 50ohm] [--out DIR] [--quiet] [--force]`
+// `ladderwave tdr SCENARIO [--rise 35ps] [--z0 50ohm] [--path RECEIVER] [--out DIR] [--quiet] [--force]`
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { formatProblem } from '../../scenario/problems.js';
 import { parseQuantity, POSITIVE, formatSI } from '../../units.js';
-import { DEFAULT_TDR_Z0, segmentReadings, tdrLossNote } from '../../views/tdr.js';
+import { DEFAULT_TDR_Z0, segmentReadings, tdrLossNote, tdrPathNote } from '../../views/tdr.js';
 import { DEFAULT_TDR_RISE, runTdrFile, type TdrReport } from '../../output/tdr.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
@@ -13,6 +13,7 @@ import { scenarioName } from './run.js';
 export interface TdrCommandOptions {
   rise?: string;
   z0?: string;
+  path?: string;
   out?: string;
   quiet?: boolean;
   force?: boolean;
@@ -41,6 +42,7 @@ export function formatTdrReport(r: TdrReport): string {
     `  step        ${si(p.rise, 's')} (10–90 %) from ${si(p.zRef, 'Ω')} (the reference impedance)`,
     `  resolution  ${p.segments.length ? `${si(p.resolution, 'm')} in '${p.segments[0].name}' (v·t_r/4)` : '—'}`,
     ...table([['', 'Z0', 'reads'], ...rows], ['l', 'r', 'r']).map((l, i) => (i === 0 ? '  segments    ' : '              ') + l),
+    ...(p.path ? [`  path        ${tdrPathNote(p)}`] : []),
     ...(tdrLossNote(p) ? [`  note        ${tdrLossNote(p)}`] : []),
     `  wrote       ${r.files.join(', ')}`,
   ];
@@ -63,6 +65,7 @@ export async function tdrCommand(file: string, opts: TdrCommandOptions, ctx: Cli
     const report = await runTdrFile(file, tdrOutputFolder(file, opts.out), {
       rise,
       z0,
+      path: opts.path,
       force: opts.force,
       onPhase: (phase) => {
         if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
@@ -95,6 +98,7 @@ export function registerTdrCommand(program: Command, ctx: CliContext): void {
     .argument('<scenario>', 'scenario file (JSON or YAML)')
     .option('-r, --rise <time>', `10–90 % rise time of the step (default ${DEFAULT_TDR_RISE * 1e12} ps, or the route's one-way delay / 400 when that is longer)`)
     .option('-z, --z0 <resistance>', `reference impedance and source resistance (default ${DEFAULT_TDR_Z0} Ω, as TDR instruments use)`)
+    .option('--path <receiver>', 'on a branched net, the receiver whose path from the driver pin the distance follows (default: the main receiver)')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>-tdr)')
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')

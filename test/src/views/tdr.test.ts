@@ -212,3 +212,43 @@ describe('labels', () => {
     }
   });
 });
+
+describe('a branched net: the profile along one path', () => {
+  // A step on a 50 Ω line meeting two more 50 Ω lines at a T reflects Γ = (25 − 50)/(25 + 50) = −1/3,
+  // so the reading past the branch point is Z_ref·(1 + ρ)/(1 − ρ) = 25 Ω, the two lines in parallel
+  // (Pozar, Microwave Engineering, ch. 2), until the open stub's reflection returns: it adds
+  // (2/3)·(+1)·(2/3) = 4/9 of the incident wave, ρ = −1/3 + 4/9 = 1/9, Z = 50·(10/9)/(8/9) = 62.5 Ω.
+  const tpd = 6.25e-9;
+  const stub = (): Net =>
+    net({
+      signal: stepSignal(1, 1e-9, 1e-9),
+      rs: 50,
+      route: [
+        line('near', 50, tpd, 0.03),
+        { kind: 'branch', name: 'tap', branches: [{ route: [line('stub', 50, tpd, 0.04)], receiver: { name: 'tp', parts: [] } }] },
+        line('far', 50, tpd, 0.05),
+      ],
+      receiver: [part({ r: 50 })],
+      receiverName: 'radio',
+      probes: [{ name: 'rx', at: 'receiver' }],
+    });
+
+  it('reads 25 Ω past the T and 62.5 Ω once the open stub answers, on either path; marks the branch point', () => {
+    const n = tdrNet(stub(), { rise: RISE });
+    const res = simulate(n);
+    for (const path of ['radio', 'tp']) {
+      const p = tdrProfile(n, res, path);
+      expect(p.path).toEqual({ receiver: path, receivers: ['radio', 'tp'] });
+      const at = (tau: number) => p.impedance[p.time.findIndex((t) => t >= tau)];
+      expect(at(0.2e-9)).toBeCloseTo(50, 1);
+      // branch point at 2·0.1875 = 0.375 ns of round trip; the stub answers 2·0.25 ns later
+      expect(Math.abs(at(0.6e-9) - 25) / 25).toBeLessThan(0.02);
+      expect(Math.abs(at(1.0e-9) - 62.5) / 62.5).toBeLessThan(0.02);
+      const place = p.places.find((pl) => pl.kind === 'branch')!;
+      expect(place.label).toBe(path === 'radio' ? 'tap ∥ stub' : 'tap ∥ far');
+      expect(place.distance).toBeCloseTo(0.03, 12);
+      expect(p.segments.map((s) => s.name)).toEqual(path === 'radio' ? ['near', 'far'] : ['near', 'stub']);
+    }
+    expect(() => tdrProfile(n, res, 'nowhere')).toThrow(/no receiver named 'nowhere' \(receivers: radio, tp\)/);
+  });
+});
