@@ -6,7 +6,8 @@ import { attr, esc } from './html.js';
 import { pngSize } from './png-size.js';
 import { routeSvg } from './schematic.js';
 import { REPORT_CSS } from './style.js';
-import { checksTable, discretizationTables, eyeTable, measurementTable, type ReportSummary } from './tables.js';
+import { checksTable, discretizationTables, eyeTable, measurementTable, receiversTable, type ReportSummary } from './tables.js';
+import { isBranched } from '../../sim/route-tree.js';
 
 export interface ReportImage {
   /** Heading shown above the image. */
@@ -48,10 +49,10 @@ function limitsSection(): string {
 the scenario, and must be confirmed by measurement and by the judgement of the designer responsible for the board.</p>
 <ul>
 <li>Covered: single-ended, uniform line segments with constant R′, L′, G′, C′ or with frequency-dependent loss fitted
-over the run’s band; chains of segments, series and shunt parts (R, L, C); a linear Thevenin driver; a linear receiver
-made of parts.</li>
+over the run’s band; chains of segments, series and shunt parts (R, L, C); branched nets (T-junctions, stars, daisy chains,
+open stubs of any length, each branch ending at a receiver); a linear Thevenin driver; linear receivers made of parts.</li>
 <li>Not covered: coupled lines and crosstalk; differential pairs as pairs; non-linear drivers and receivers (no I/V
-tables, no clamp diodes); branching nets (a stub is a lumped part here); radiation; the return path is ideal.</li>
+tables, no clamp diodes); loops (a ring of lines); radiation; the return path is ideal.</li>
 <li>The time step and cell lengths are listed above. On lossy or Courant &lt; 1 segments the numerical solution carries
 a small dispersion error that shrinks as the cells get shorter (raise <code>cellsPerRise</code> to check).</li>
 <li>Eye height and eye width are noise-free: no jitter, crosstalk or receiver noise is included, so a real eye is
@@ -79,7 +80,7 @@ export function buildReport(input: ReportInput): string {
       (net.description ? `<p class="description">${esc(net.description)}</p>` : ''),
   );
   parts.push(`<section id="route"><h2>Route</h2><div class="strip">${routeSvg(net)}</div>
-<p class="muted">From the driver pin (left) to the receiver (right). TD is each segment’s one-way delay at high frequency.
+<p class="muted">From the driver pin (left) to the receiver (right)${isBranched(net) ? '; each branch’s side route is drawn in a row of its own below its branch point, ending at its receiver' : ''}. TD is each segment’s one-way delay at high frequency.
 Z0 is √(L′/C′) for a line of constant R′, L′, G′, C′; for a line with frequency-dependent loss it is the quasi-static value
 at the frequency shown (the one its description is given at), with R′ at the same frequency, and Z0∞ is its high-frequency limit
 (the same figures as <code>ladderwave line</code> and summary.json).</p></section>`);
@@ -93,6 +94,13 @@ at the frequency shown (the one its description is given at), with R′ at the s
     );
   }
 
+  const receivers = receiversTable(summary);
+  if (receivers) {
+    parts.push(
+      `<section id="receivers-section"><h2>Receivers</h2><div class="wide">${receivers}</div>` +
+        `<p class="muted">A probe added for the run is not in probes.csv; its measurements are in summary.json under "receivers".</p></section>`,
+    );
+  }
   const m = measurementTable(summary);
   parts.push(`<section id="measurements-section"><h2>Measurements</h2><div class="wide">${m.html}</div></section>`);
   const eye = eyeTable(summary);

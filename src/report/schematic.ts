@@ -1,11 +1,14 @@
 // The route as a schematic strip, in inline SVG of our own: the driver (a source behind its resistance),
 // each line segment as a long box with its Z0, one-way delay and length, series parts in the signal
 // path and shunt parts as branches to ground or to their rail, each element with its own symbol
-// (resistor box, inductor coil, capacitor plates), and the receiver's parts (or an open end). Widths
-// follow the longest label, so nothing overlaps.
+// (resistor box, inductor coil, capacitor plates), and the receiver's parts (or an open end). A
+// branched route is drawn as a tree: the trunk left to right, each branch's side route in a row of its
+// own below it, joined to its branch point by a wire down. Widths follow the longest label, so nothing
+// overlaps.
 import { rlgcAt } from '../../sim/lines/freq-model.js';
 import { lineImpedance } from '../../sim/lines/impedance.js';
 import type { LineRLGC, Net, Part, RouteItem, Signal } from '../../sim/model.js';
+import { allItems, allReceivers, isBranched, mainReceiver } from '../../sim/route-tree.js';
 import { formatSI } from '../units.js';
 import { attr, esc } from './html.js';
 
@@ -60,6 +63,8 @@ interface Block {
   width: number;
   /** SVG for the block, drawn with its left edge at x = 0. */
   svg: string;
+  /** A branch point: x of its junction inside the block. */
+  junction?: number;
 }
 
 const Y = 56; // the signal line
@@ -238,31 +243,34 @@ function shuntBlock(item: Extract<RouteItem, { kind: 'shunt' }>): Block {
   return { width: w, svg };
 }
 
-/** A branch point, drawn as a junction dot with the receivers its side routes lead to (the tree drawing is not done yet). */
+/**
+ * A branch point: a junction dot on the wire, the wire down to the side routes drawn below the row
+ * (routeSvg lays them out), and the receivers they lead to, beside that wire.
+ */
 function branchBlock(item: Extract<RouteItem, { kind: 'branch' }>): Block {
-  const details = item.branches.map((b) => `→ ${b.receiver.name}`);
-  const w = widthFor([item.name, 'branch', ...details], 70);
+  const details = ['branch', ...item.branches.map((b) => `→ ${b.receiver.name}`)];
+  const cx = Math.ceil(Math.max(20, textWidth(item.name) / 2 + 8));
+  const w = Math.ceil(cx + 10 + Math.max(...details.map(textWidth)) + 12);
   const svg =
     wire(0, w) +
-    `<circle cx="${w / 2}" cy="${Y}" r="4.5" fill="${STROKE}"/>` +
-    `<line x1="${w / 2}" y1="${Y}" x2="${w / 2}" y2="${Y + 22}" stroke="${STROKE}" stroke-width="2" stroke-dasharray="4 3"/>` +
-    text(w / 2, Y - 16, item.name, { bold: true }) +
-    labels(w / 2, Y + 40, ['branch', ...details]);
-  return { width: w, svg };
+    `<circle cx="${cx}" cy="${Y}" r="4.5" fill="${STROKE}"/>` +
+    text(cx, Y - 16, item.name, { bold: true }) +
+    details.map((l, i) => text(cx + 10, Y + 28 + i * (FONT + 4), l, { anchor: 'start', muted: i > 0 })).join('');
+  return { width: w, svg, junction: cx };
 }
 
-function receiverBlock(parts: Part[]): Block {
+function receiverBlock(parts: Part[], name = 'receiver'): Block {
   if (parts.length === 0) {
-    const w = widthFor(['receiver', 'open end'], 70);
+    const w = widthFor([name, 'open end'], 70);
     return {
       width: w,
-      svg: wire(0, 24) + `<circle cx="28" cy="${Y}" r="4" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` + labels(w / 2, Y + 28, ['receiver', 'open end']),
+      svg: wire(0, 24) + `<circle cx="28" cy="${Y}" r="4" fill="#ffffff" stroke="${STROKE}" stroke-width="2"/>` + labels(w / 2, Y + 28, [name, 'open end']),
     };
   }
   const details = parts.map((p) => describePart(p));
   const b = branches(0, parts);
-  const w = Math.max(widthFor(['receiver', ...details], 80), b.width + 24);
-  const svg = wire(0, w / 2) + `<g transform="translate(${w / 2},0)">${b.svg}</g>` + labels(w / 2, Y + 104, ['receiver', ...details]);
+  const w = Math.max(widthFor([name, ...details], 80), b.width + 24);
+  const svg = wire(0, w / 2) + `<g transform="translate(${w / 2},0)">${b.svg}</g>` + labels(w / 2, Y + 104, [name, ...details]);
   return { width: w, svg };
 }
 
@@ -279,25 +287,77 @@ function blockFor(item: RouteItem): Block {
   }
 }
 
-/** The route strip as an <svg> element (natural size; the page scrolls it sideways when it is wide). */
-export function routeSvg(net: Net): string {
-  const blocks = [driverBlock(net), ...net.route.map(blockFor), receiverBlock(net.receiver)];
-  const rows = Math.max(
+/** Text rows a row of the drawing needs below its wire. */
+function rowsOf(items: readonly RouteItem[], receiver: readonly Part[]): number {
+  return Math.max(
     3,
-    ...net.route.map((i) => (i.kind === 'shunt' ? 1 + i.parts.length : i.kind === 'branch' ? 1 + i.branches.length : i.kind === 'line' ? 3 : 2)),
-    1 + net.receiver.length,
+    ...items.map((i) => (i.kind === 'shunt' ? 1 + i.parts.length : i.kind === 'branch' ? 1 + i.branches.length : i.kind === 'line' ? 3 : 2)),
+    1 + receiver.length,
   );
-  const height = Y + 104 + rows * (FONT + 4) + 8;
-  let x = 8;
-  let body = '';
-  for (const b of blocks) {
-    body += `<g transform="translate(${x},0)">${b.svg}</g>`;
+}
+
+/** A drawn part of the tree: its SVG, its right edge and its bottom (px). */
+interface Laid {
+  svg: string;
+  right: number;
+  bottom: number;
+}
+
+/**
+ * One row — `lead` blocks, the items, the receiver — with its left edge at x0 and top at y0, then the
+ * side routes of its branch items below it: those of the rightmost branch point first, so that the
+ * wire down from a branch point further left passes to the left of everything drawn before it.
+ */
+function layRow(lead: readonly Block[], items: readonly RouteItem[], receiver: Block, receiverParts: readonly Part[], x0: number, y0: number): Laid {
+  const blocks = [...lead, ...items.map(blockFor), receiver];
+  const height = Y + 104 + rowsOf(items, receiverParts) * (FONT + 4) + 8;
+  let x = x0;
+  let svg = '';
+  const junctions: { item: Extract<RouteItem, { kind: 'branch' }>; x: number }[] = [];
+  blocks.forEach((b, k) => {
+    svg += `<g transform="translate(${x},${y0})">${b.svg}</g>`;
+    const item = items[k - lead.length];
+    if (item?.kind === 'branch' && b.junction !== undefined) junctions.push({ item, x: x + b.junction });
     x += b.width;
+  });
+  let right = x;
+  let bottom = y0 + height;
+  for (const j of junctions.reverse()) {
+    let from = y0 + Y;
+    for (const br of j.item.branches) {
+      const sub = layRow([leadIn()], br.route, receiverBlock([...br.receiver.parts], br.receiver.name), br.receiver.parts, j.x, bottom);
+      svg += `<line x1="${j.x}" y1="${from}" x2="${j.x}" y2="${bottom + Y}" stroke="${STROKE}" stroke-width="2"/>`;
+      from = bottom + Y;
+      right = Math.max(right, sub.right);
+      bottom = sub.bottom;
+      svg += sub.svg;
+    }
   }
-  const width = Math.ceil(x + 8);
-  const title = `Route of ${net.title || 'the scenario'}: driver, ${net.route.length} route item${net.route.length === 1 ? '' : 's'}, receiver`;
+  return { svg, right, bottom };
+}
+
+/** The short wire a side route starts with, from the wire coming down from its branch point. */
+function leadIn(): Block {
+  return { width: 20, svg: `<circle cx="0" cy="${Y}" r="3.5" fill="${STROKE}"/>` + wire(0, 20) };
+}
+
+/**
+ * The route as an <svg> element (natural size; the page scrolls it sideways when it is wide): the
+ * driver and the main route left to right, each branch's side route in a row of its own below, starting
+ * under its branch point, to any depth.
+ */
+export function routeSvg(net: Net): string {
+  const branched = isBranched(net);
+  const main = receiverBlock(net.receiver, branched ? mainReceiver(net).name : 'receiver');
+  const laid = layRow([driverBlock(net)], net.route, main, net.receiver, 8, 0);
+  const width = Math.ceil(laid.right + 8);
+  const height = Math.ceil(laid.bottom);
+  const receivers = allReceivers(net).length;
+  const title = branched
+    ? `Route of ${net.title || 'the scenario'} as a tree: driver, ${allItems(net.route).length} route items, ${receivers} receivers; side routes drawn below their branch points`
+    : `Route of ${net.title || 'the scenario'}: driver, ${net.route.length} route item${net.route.length === 1 ? '' : 's'}, receiver`;
   return (
     `<svg xmlns="http://www.w3.org/2000/svg" class="route" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" role="img" aria-label="${attr(title)}">` +
-    `<title>${esc(title)}</title>${body}</svg>`
+    `<title>${esc(title)}</title>${laid.svg}</svg>`
   );
 }

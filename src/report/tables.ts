@@ -322,3 +322,26 @@ export function discretizationTables(summary: ReportSummary): string {
   );
   return overview + reason + seg;
 }
+
+// ---------------------------------------------------------------- receivers
+
+/**
+ * Every receiver of a branched net with the probe that watches it and its extremes and final value
+ * (summary.json "receivers"); null for a net with one receiver.
+ */
+export function receiversTable(summary: ReportSummary): string | null {
+  const rx = at(summary, ['receivers']);
+  if (rx === null || typeof rx !== 'object' || Array.isArray(rx)) return null;
+  const rows: Cell[][] = Object.keys(rx).map((name) => {
+    const probe = at(summary, ['receivers', name, 'probe']);
+    const recorded = at(summary, ['receivers', name, 'recorded']) === true;
+    return [
+      textCell(name),
+      textCell(`${typeof probe === 'string' ? probe : '—'}${recorded ? '' : ' (added for the run)'}`),
+      numCell(summary, ['receivers', name, 'min'], 'V'),
+      numCell(summary, ['receivers', name, 'max'], 'V'),
+      numCell(summary, ['receivers', name, 'final'], 'V'),
+    ];
+  });
+  return renderTable('receivers', ['Receiver', 'Probe', 'Min', 'Max', 'Final'], rows, 'Every receiver of the net, main receiver first');
+}

@@ -82,3 +82,69 @@ describe('routeSvg', () => {
     expect([count(shunt, 'r'), count(shunt, 'l'), count(shunt, 'c')]).toEqual([1, 1, 2]);
   });
 });
+
+describe('routeSvg of a branched net: a tree', () => {
+  // A star of two arms at 'hub' and a stub on one arm: the trunk's row on top, each side route in a
+  // row of its own below, starting under its branch point (the arm with the nested stub first gets
+  // its own stub row below it).
+  const t = (name: string, length: number) => ({ kind: 'line' as const, name, line: lineOf(50, 5e-9), length });
+  const n = net({
+    signal: stepSignal(1, 1e-10),
+    rs: 20,
+    route: [
+      t('trunk', 0.02),
+      {
+        kind: 'branch',
+        name: 'hub',
+        branches: [
+          { route: [t('armB', 0.03), { kind: 'branch', name: 'tee', branches: [{ route: [t('stub', 0.01)], receiver: { name: 'tp', parts: [] } }] }, t('armB2', 0.01)], receiver: { name: 'adcB', parts: [part({ c: 2e-12 })] } },
+          { route: [t('armC', 0.04)], receiver: { name: 'adcC', parts: [part({ r: 100 })] } },
+        ],
+      },
+      t('armA', 0.05),
+    ],
+    receiver: [part({ c: 3e-12 })],
+    receiverName: 'adcA',
+  });
+  const svg = routeSvg(n);
+  /** The translate of the group holding a line's name. */
+  const place = (name: string): [number, number] => {
+    const i = svg.indexOf(`>${name}</text>`);
+    const g = svg.lastIndexOf('<g transform="translate(', i);
+    const m = /translate\(([\d.]+),([\d.]+)\)/.exec(svg.slice(g, g + 60))!;
+    return [Number(m[1]), Number(m[2])];
+  };
+
+  it('names every receiver and draws every line once', () => {
+    for (const name of ['adcA', 'adcB', 'adcC', 'tp', 'trunk', 'armA', 'armB', 'armB2', 'armC', 'stub']) expect(svg.split(`>${name}</text>`).length - 1, name).toBe(1);
+    expect(svg).toContain('→ adcB');
+    expect(svg).toContain('as a tree');
+  });
+
+  it('puts the trunk on top and each side route below and to the right of its branch point', () => {
+    const [xTrunk, yTrunk] = place('trunk');
+    const [xA, yA] = place('armA');
+    const [xB, yB] = place('armB');
+    const [xC, yC] = place('armC');
+    const [xStub, yStub] = place('stub');
+    const [xB2, yB2] = place('armB2');
+    expect(yA).toBe(yTrunk);
+    expect(xA).toBeGreaterThan(xTrunk);
+    // both arms start right of the trunk, below it, in rows of their own
+    for (const [x, y] of [[xB, yB], [xC, yC]]) {
+      expect(x).toBeGreaterThan(xTrunk);
+      expect(y).toBeGreaterThan(yTrunk);
+    }
+    expect(yB2).toBe(yB);
+    expect(new Set([yB, yC, yStub]).size).toBe(3);
+    // the stub hangs below its arm, right of where the arm starts
+    expect(yStub).toBeGreaterThan(yB);
+    expect(xStub).toBeGreaterThan(xB);
+  });
+
+  it('an unbranched route is still one strip', () => {
+    const flat = routeSvg({ ...n, route: [t('only', 0.1)], receiverName: undefined });
+    expect(flat).not.toContain('as a tree');
+    expect(/height="(\d+)"/.exec(flat)![1]).toBe(String(56 + 104 + 3 * 16 + 8));
+  });
+});

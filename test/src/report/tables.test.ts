@@ -98,3 +98,21 @@ describe('eye table', () => {
     expect(html).not.toContain('Note: closed');
   });
 });
+
+describe('receiversTable', () => {
+  it('lists every receiver with its probe and numbers read from summary.json, none for one receiver', async () => {
+    const { receiversTable } = await import('../../../src/report/tables.js');
+    const summary = {
+      receivers: {
+        adcA: { probe: 'adcA', recorded: true, min: -0.05, max: 3.4, final: 3.3 },
+        tp: { probe: 'tp', recorded: false, min: 0, max: 0.8, final: 0.6 },
+      },
+    };
+    const html = receiversTable(summary as never)!;
+    expect(html).toContain('id="receivers"');
+    expect(html).toContain('<th scope="row">adcA</th>');
+    expect(html).toContain('tp (added for the run)');
+    expect(html).toContain('data-path="receivers.tp.max" data-value="0.8"');
+    expect(receiversTable({} as never)).toBeNull();
+  });
+});
