@@ -276,10 +276,78 @@ export function treeLatticeDiagram(net: Net, options: TreeLatticeOptions = {}): 
   const amplitude = dv * launchPerVolt;
   const floor = Math.max(1e-300, Math.min(...edges.map((e) => Math.abs(e.step * launchPerVolt))) * (options.floor ?? 1e-3));
   const maxBounces = options.maxBounces ?? 32;
-  // every line's waves are followed; the path keeps up to maxWaves of them
   const maxWaves = options.maxWaves ?? 4000;
-  const maxFollowed = 20 * maxWaves;
 
+  // boundaries along the path: the driver end, each path cluster between two path segments, the receiver end
+  const pathSegs = [...onPath.keys()];
+  const boundaryOfCluster = new Map<number, number>();
+  const boundaries: LatticeBoundary[] = pathBoundaries(c, tree, pathSegs, segments, boundaryOfCluster);
+
+  const followed = followWaves(tree, c, { onPath, segments, boundaries, boundaryOfCluster }, { edges, horizon, floor, maxBounces, maxWaves }, [pin, rxNode]);
+  const { waves, arrivals, sideArrivals, watchSteps, truncated, complete } = followed;
+
+  const finalLevel = sig.from + edges.filter((e) => e.time <= horizon).reduce((a, e) => a + e.step, 0);
+  const levels = (vs: number): DcLevels => {
+    const v = dcVoltages(c, vs);
+    return { pin: v(pin), segments: pathSegs.map((k) => v(c.segments[k].from)), receiver: v(rxNode) };
+  };
+  const dc = { before: levels(sig.from), after: levels(finalLevel) };
+  const plateau = (node: number, initial: number) => toPlateaus(watchSteps.get(node)!, complete, (line) => initial + line, initial);
+  const z0 = segments[0].z0;
+  const gS = boundaries[0].gammaFromRight!;
+  const rTh = zSeen(gS, z0);
+  return {
+    supported: true,
+    segments,
+    boundaries,
+    launch: {
+      time: t50,
+      stepVoltage: dv,
+      sourceResistance: c.sources[0].resistance,
+      theveninVoltage: rTh === Infinity ? 0 : (amplitude * (rTh + z0)) / z0,
+      theveninResistance: rTh,
+      z0,
+      amplitude,
+    },
+    waves,
+    arrivals,
+    edges: edges.filter((e) => e.time <= horizon),
+    dc,
+    plateaus: { driver: plateau(pin, dc.before.pin), receiver: plateau(rxNode, dc.before.receiver) },
+    horizon: complete,
+    truncated,
+    path: { receiver: path.receiver, receivers: c.paths.map((p) => p.receiver) },
+    sideArrivals,
+  };
+}
+
+/** The drawn path: its lines (circuit index → path index), their spans, its boundaries by cluster. */
+interface PathView {
+  onPath: Map<number, number>;
+  segments: LatticeSegment[];
+  boundaries: LatticeBoundary[];
+  boundaryOfCluster: Map<number, number>;
+}
+
+interface FollowLimits {
+  edges: readonly SourceEdge[];
+  horizon: number;
+  floor: number;
+  maxBounces: number;
+  maxWaves: number;
+}
+
+/**
+ * Every wave on every line, in order of launch time, from the driver's edges on: at each line end the
+ * cluster's scattering sends it on into every line there. Waves on the path are kept, with their
+ * arrivals at its boundaries; waves entering the path from elsewhere are kept as side arrivals; the
+ * voltage steps at the watched nodes are collected for their plateaus.
+ */
+function followWaves(tree: TreeScatter, c: Circuit, view: PathView, limits: FollowLimits, watched: readonly number[]) {
+  const { onPath, segments, boundaries, boundaryOfCluster } = view;
+  const { edges, horizon, floor, maxBounces, maxWaves } = limits;
+  // every line's waves are followed; the path keeps up to maxWaves of them
+  const maxFollowed = 20 * maxWaves;
   const heap = new Heap();
   const pending = new Map<string, TreeWave>();
   const key = (seg: number, dir: number, t: number) => `${seg}:${dir}:${t.toPrecision(12)}`;
@@ -305,15 +373,10 @@ export function treeLatticeDiagram(net: Net, options: TreeLatticeOptions = {}): 
     });
   }
 
-  // boundaries along the path: the driver end, each path cluster between two path segments, the receiver end
-  const pathSegs = [...onPath.keys()];
-  const boundaryOfCluster = new Map<number, number>();
-  const boundaries: LatticeBoundary[] = pathBoundaries(c, tree, pathSegs, segments, boundaryOfCluster);
-
   const waves: LatticeWave[] = [];
   const arrivals: LatticeArrival[] = [];
   const sideArrivals: SideArrival[] = [];
-  const watchSteps = new Map<number, PlateauStep[]>([[pin, []], [rxNode, []]]);
+  const watchSteps = new Map<number, PlateauStep[]>(watched.map((n) => [n, []]));
   for (const e of edges) {
     if (e.time > horizon) continue;
     for (const [node, steps] of watchSteps) {
@@ -369,40 +432,7 @@ export function treeLatticeDiagram(net: Net, options: TreeLatticeOptions = {}): 
     }
   }
   arrivals.sort((p, q) => p.time - q.time || p.boundary - q.boundary);
-
-  const finalLevel = sig.from + edges.filter((e) => e.time <= horizon).reduce((a, e) => a + e.step, 0);
-  const levels = (vs: number): DcLevels => {
-    const v = dcVoltages(c, vs);
-    return { pin: v(pin), segments: pathSegs.map((k) => v(c.segments[k].from)), receiver: v(rxNode) };
-  };
-  const dc = { before: levels(sig.from), after: levels(finalLevel) };
-  const plateau = (node: number, initial: number) => toPlateaus(watchSteps.get(node)!, complete, (line) => initial + line, initial);
-  const z0 = segments[0].z0;
-  const gS = boundaries[0].gammaFromRight!;
-  const rTh = zSeen(gS, z0);
-  return {
-    supported: true,
-    segments,
-    boundaries,
-    launch: {
-      time: t50,
-      stepVoltage: dv,
-      sourceResistance: c.sources[0].resistance,
-      theveninVoltage: rTh === Infinity ? 0 : (amplitude * (rTh + z0)) / z0,
-      theveninResistance: rTh,
-      z0,
-      amplitude,
-    },
-    waves,
-    arrivals,
-    edges: edges.filter((e) => e.time <= horizon),
-    dc,
-    plateaus: { driver: plateau(pin, dc.before.pin), receiver: plateau(rxNode, dc.before.receiver) },
-    horizon: complete,
-    truncated,
-    path: { receiver: path.receiver, receivers: c.paths.map((p) => p.receiver) },
-    sideArrivals,
-  };
+  return { waves, arrivals, sideArrivals, watchSteps, truncated, complete };
 }
 
 /** The driver end, the junctions between consecutive path segments and the receiver end, with the path's Γ and τ. */
