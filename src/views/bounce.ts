@@ -12,7 +12,7 @@ import { encodePng, Surface, type Rect } from '../render/surface.js';
 import { formatSi } from '../render/ticks.js';
 import { idealiseForLattice, type Idealisation } from './idealise.js';
 import { latticeDiagram, type LatticeDiagram, type LatticeResult } from './lattice.js';
-import { isBranched, mainReceiver } from '../../sim/route-tree.js';
+import { isBranched, mainReceiver, routeToReceiver } from '../../sim/route-tree.js';
 import { unknownPath } from './select.js';
 import { treeLatticeDiagram, type TreeLatticeOptions } from './tree-lattice.js';
 import {
@@ -278,7 +278,7 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
     const frameSpec: FrameSpec = {
       title: 'Lattice diagram',
       subtitle: 'not drawn for this net',
-      x: { label: 'Distance from the driver pin', unit: 'm', domain: [0, routeLength(net) || 1] },
+      x: { label: 'Distance from the driver pin', unit: 'm', domain: [0, routeLength(net, input.path) || 1] },
       y: timeDownAxis(time),
       topReserve,
     };
@@ -328,8 +328,9 @@ export function drawBounce(s: Surface, area: Rect, input: BounceInput): BounceLa
   return { diagram, idealisation, driver, lattice, receiver, message };
 }
 
-function routeLength(net: Net): number {
-  return net.route.reduce((acc, it) => acc + (it.kind === 'line' ? it.length : 0), 0);
+/** Length of the lines from the driver pin to the receiver `path` (default the main one). */
+function routeLength(net: Net, path?: string): number {
+  return (routeToReceiver(net, path) ?? net.route).reduce((acc, it) => acc + (it.kind === 'line' ? it.length : 0), 0);
 }
 
 /** Print each plateau's level beside it, where there is room. */
