@@ -67,6 +67,8 @@ export function compareScores(obj: Objective): (a: Score, b: Score) => number {
     if (!a.pass) {
       if (a.margin !== b.margin) return a.margin < b.margin ? -1 : 1;
     } else if (a.value !== b.value) {
+      // a value that could not be measured (Infinity) never ties with one that could
+      if (!Number.isFinite(a.value) || !Number.isFinite(b.value)) return a.value < b.value ? -1 : 1;
       const tol = obj.rel * Math.max(Math.abs(a.value), Math.abs(b.value)) + obj.abs;
       if (!(Math.abs(a.value - b.value) <= tol)) return a.value < b.value ? -1 : 1;
     }
@@ -96,6 +98,7 @@ export function rankOrder(obj: Objective): (a: Ranked, b: Ranked) => { order: nu
     if (s.pass !== t.pass) return { order: s.pass ? -1 : 1, why: 'passes the checks' };
     if (!s.pass && s.margin !== t.margin) return { order: s.margin < t.margin ? -1 : 1, why: 'misses the checks by less' };
     if (s.value !== t.value) {
+      if (!Number.isFinite(s.value) || !Number.isFinite(t.value)) return { order: s.value < t.value ? -1 : 1, why: `better ${obj.name}` };
       const tol = Math.max(RANK_TIE * Math.max(Math.abs(s.value), Math.abs(t.value)), obj.abs);
       if (!(Math.abs(s.value - t.value) <= tol)) return { order: s.value < t.value ? -1 : 1, why: `better ${obj.name}` };
     }
