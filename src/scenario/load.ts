@@ -1,7 +1,7 @@
 // Entry points: scenario file or text → Net, or a ScenarioError listing every problem.
-import { readFile } from 'node:fs/promises';
 import type { Net } from '../../sim/model.js';
-import { fromValue, parseText } from './parse.js';
+import { fromValue, parseText, type SrcNode } from './parse.js';
+import { formatBytes, MAX_SCENARIO_BYTES, readCapped } from './file.js';
 import { Problems, ScenarioError, sortProblems, type Problem } from './problems.js';
 import { validateScenario } from './validate.js';
 
@@ -14,6 +14,8 @@ export interface CheckResult {
   problems: Problem[];
   /** Things that are allowed but probably not meant (e.g. a step from 1V to 1V). */
   warnings: Problem[];
+  /** The parsed text with source positions (absent when it could not be parsed). */
+  root?: SrcNode;
 }
 
 /** Check scenario text (JSON or YAML) without throwing. */
@@ -22,7 +24,7 @@ export function checkScenario(text: string, fileName: string): CheckResult {
   const root = parseText(text, problems);
   // Syntax errors leave no tree; duplicate keys are reported but the rest is still checked.
   const net = root ? validateScenario(root, problems) : undefined;
-  return finish(problems, net);
+  return { ...finish(problems, net), ...(root ? { root } : {}) };
 }
 
 /** Check a scenario given as plain data (e.g. built in code); problems carry no line:col. */
@@ -53,19 +55,17 @@ export function scenarioFromValue(value: unknown, fileName = '(scenario)'): Net 
 }
 
 /** Read and check a scenario file and also hand back its bytes (for hashing), text and warnings. */
-export async function readScenario(path: string): Promise<{ net: Net; text: string; bytes: Buffer; warnings: Problem[] }> {
-  let bytes: Buffer;
-  try {
-    bytes = await readFile(path);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'a directory' : code ?? String(e);
-    throw new ScenarioError([{ file: path, path: '', value: path, expected: `a readable scenario file (${why})` }]);
+export async function readScenario(path: string): Promise<{ net: Net; text: string; bytes: Buffer; warnings: Problem[]; root: SrcNode }> {
+  const read = await readCapped(path, MAX_SCENARIO_BYTES);
+  if (!read.ok) {
+    const what = read.tooLarge ? `a scenario file of at most ${formatBytes(MAX_SCENARIO_BYTES)}` : 'a readable scenario file';
+    throw new ScenarioError([{ file: path, path: '', value: path, expected: `${what} (${read.why})` }]);
   }
+  const bytes = read.bytes;
   let text = bytes.toString('utf8');
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // byte-order mark
   const r = checkScenario(text, path);
-  return { net: orThrow(r), text, bytes, warnings: r.warnings };
+  return { net: orThrow(r), text, bytes, warnings: r.warnings, root: r.root! };
 }
 
 /** Read a scenario file (JSON or YAML) → Net; throws ScenarioError listing every problem. */
