@@ -139,6 +139,59 @@ export const DIMENSIONS = {
 
 export type Dimension = keyof typeof DIMENSIONS;
 
+/**
+ * The magnitudes a quantity of each dimension may have, whatever the key: anything outside is not a
+ * board, cable or part value, and would make the arithmetic overflow or lose all precision further
+ * down (1e300 V, 1e-300 F). `max` bounds |value|; `minNonZero` bounds |value| from below unless it is
+ * exactly 0. The bounds are wide on purpose (common practice: several decades beyond any real part).
+ */
+export const MAGNITUDE_BOUNDS: Readonly<Record<Dimension, { max?: number; minNonZero?: number }>> = {
+  voltage: { max: 1e6, minNonZero: 1e-12 },
+  current: { max: 1e6, minNonZero: 1e-15 },
+  time: { max: 1e6, minNonZero: 1e-15 },
+  frequency: { max: 1e13, minNonZero: 1e-3 },
+  resistance: { max: 1e12, minNonZero: 1e-6 },
+  inductance: { max: 100, minNonZero: 1e-15 },
+  capacitance: { max: 1, minNonZero: 1e-18 },
+  conductance: { max: 1e6, minNonZero: 1e-12 },
+  length: { max: 1e5, minNonZero: 1e-9 },
+  thickness: { max: 1e5, minNonZero: 1e-9 },
+  resistancePerLength: { max: 1e9, minNonZero: 1e-9 },
+  inductancePerLength: { max: 1e-2, minNonZero: 1e-12 },
+  capacitancePerLength: { max: 1e-6, minNonZero: 1e-15 },
+  conductancePerLength: { max: 1e6, minNonZero: 1e-15 },
+  delayPerLength: { max: 1e-3 },
+  velocity: { max: 1e9, minNonZero: 1e3 },
+  fraction: {},
+  decibels: { max: 1e3 },
+  attenuationPerLength: { max: 1e4 },
+  number: {},
+  conductivity: { max: 1e9, minNonZero: 1e3 },
+};
+
+/** Whether |v| lies within the dimension's MAGNITUDE_BOUNDS. */
+export function withinMagnitude(v: number, dim: Dimension): boolean {
+  const b = MAGNITUDE_BOUNDS[dim];
+  const a = Math.abs(v);
+  if (b.max !== undefined && a > b.max) return false;
+  if (b.minNonZero !== undefined && a !== 0 && a < b.minNonZero) return false;
+  return true;
+}
+
+/** What is expected of a value outside MAGNITUDE_BOUNDS: `a resistance of 0 or from 1 µΩ to 1 TΩ like "50ohm"`. */
+export function magnitudePhrase(dim: Dimension, range?: Range, example: string = DIMENSIONS[dim].example): string {
+  const { noun } = DIMENSIONS[dim];
+  const b = MAGNITUDE_BOUNDS[dim];
+  const hi = b.max !== undefined ? formatBound(b.max, dim) : undefined;
+  const lo = b.minNonZero !== undefined ? formatBound(b.minNonZero, dim) : undefined;
+  const signed = range?.min === undefined || range.min < 0;
+  const zeroOk = !range || range.min === undefined || range.min < 0 || (range.min === 0 && !range.minExclusive);
+  const span = lo && hi ? `from ${lo} to ${hi}` : hi ? `up to ${hi}` : `of at least ${lo}`;
+  const body = signed ? `${span} in size` : span;
+  return `${noun} ${zeroOk && lo ? `of 0 or ${body.replace(/^of /, '')}` : body} like "${example}"`;
+}
+
+
 /** Bounds on a parsed value. `min`/`max` are inclusive unless the matching `...Exclusive` flag is set. */
 export interface Range {
   min?: number;
@@ -214,6 +267,8 @@ export function dimensionsOfUnit(unit: string): Dimension[] {
 function formatBound(n: number, dim: Dimension): string {
   const base = DIMENSIONS[dim].base;
   if (n === 0 || base === '') return String(n);
+  // Units without SI prefixes (dB/m) are written as a plain number with the unit, and so are long times (1000000s, not 1Ms).
+  if (!(Object.values(DIMENSIONS[dim].units) as UnitDef[]).some((u) => u.prefixes) || (base === 's' && n >= 1)) return `${n}${base}`;
   return formatSI(n, base).replace(' ', '');
 }
 
@@ -324,8 +379,11 @@ export function parseQuantity(value: unknown, dim: Dimension, range?: Range, exa
   } else {
     return { ok: false, expected };
   }
-  if (!Number.isFinite(n)) return { ok: false, expected };
+  if (Number.isNaN(n)) return { ok: false, expected };
+  // 1e999 reads as Infinity: out of range, like 1e300.
+  if (!Number.isFinite(n) && inRange(Math.sign(n), range)) return { ok: false, expected: magnitudePhrase(dim, range, example) };
   if (!inRange(n, range)) return { ok: false, expected };
+  if (!withinMagnitude(n, dim)) return { ok: false, expected: magnitudePhrase(dim, range, example) };
   return { ok: true, value: n };
 }
 

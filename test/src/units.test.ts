@@ -132,8 +132,11 @@ describe('parseQuantity: refusals say what was expected', () => {
   it.each([[''], ['abc'], ['ns'], ['1.2.3ns'], ['--1ns'], ['1 e 9']])('malformed %j', (text) => {
     expect(parseQuantity(text, 'time').ok).toBe(false);
   });
-  it.each([[true], [null], [undefined], [[1]], [{ v: 1 }], [NaN], [Infinity], ['1e999s']])('not a quantity: %j', (v) => {
+  it.each([[true], [null], [undefined], [[1]], [{ v: 1 }], [NaN]])('not a quantity: %j', (v) => {
     expect(parseQuantity(v, 'time')).toEqual({ ok: false, expected: 'a time like "600ps"' });
+  });
+  it.each([[Infinity], ['1e999s'], ['-1e999s']])('beyond any real value: %j (the refusal names the magnitudes accepted)', (v) => {
+    expect(parseQuantity(v, 'time')).toEqual({ ok: false, expected: 'a time of 0 or from 1fs to 1000000s in size like "600ps"' });
   });
   it('prefixes do not apply to fixed units ("kin", "Mft", "mc" are not units)', () => {
     expect(parseQuantity('1kin', 'length').ok).toBe(false);
@@ -251,5 +254,33 @@ describe('formatSI', () => {
       const s = formatSI(v, 's', 15, { ascii: true }).replace(' ', '');
       close(ok(s, 'time'), v, 1e-12);
     }
+  });
+});
+
+describe('parseQuantity: magnitudes beyond any board, cable or part', () => {
+  // The bounds are common practice (several decades past real parts), chosen so that products of
+  // quantities stay finite; each refusal names the span accepted, not a symptom further down.
+  it.each([
+    ['1e300ohm', 'resistance', NON_NEGATIVE, 'a resistance of 0 or from 1µohm to 1Tohm like "50ohm"'],
+    ['1e-300F', 'capacitance', POSITIVE, 'a capacitance from 0.001fF to 1F like "3pF"'],
+    ['1e308V', 'voltage', undefined, 'a voltage of 0 or from 1pV to 1MV in size like "3.3V"'],
+    ['1e300Hz', 'frequency', POSITIVE, 'a frequency from 1mHz to 10THz like "100MHz"'],
+    ['1e-300S/m', 'conductivity', POSITIVE, 'a conductivity from 1kS/m to 1GS/m like "5.8e7S/m"'],
+    ['1e300dB/m', 'attenuationPerLength', POSITIVE, 'an attenuation per length up to 10000dB/m like "4.3dB/100m"'],
+    ['1e300m', 'length', POSITIVE, 'a length from 1nm to 100km like "3in"'],
+    ['1e-308s', 'time', POSITIVE, 'a time from 1fs to 1000000s like "600ps"'],
+  ] as const)('%s as %s', (text, dim, range, expected) => {
+    expect(parseQuantity(text, dim, range)).toEqual({ ok: false, expected });
+  });
+
+  it('keeps the plain range message for a value on the wrong side of zero', () => {
+    expect(parseQuantity('-5ohm', 'resistance', NON_NEGATIVE)).toEqual({ ok: false, expected: 'a resistance ≥ 0 like "50ohm"' });
+  });
+
+  it('accepts 0 where the range allows it, and the ends of each span', () => {
+    expect(parseQuantity('0ohm', 'resistance', NON_NEGATIVE)).toEqual({ ok: true, value: 0 });
+    expect(parseQuantity('1Tohm', 'resistance', NON_NEGATIVE)).toEqual({ ok: true, value: 1e12 });
+    expect(parseQuantity('1uohm', 'resistance', NON_NEGATIVE)).toEqual({ ok: true, value: 1e-6 });
+    expect(parseQuantity('-1MV', 'voltage')).toEqual({ ok: true, value: -1e6 });
   });
 });
