@@ -11,6 +11,7 @@ import type { Net } from '../../sim/model.js';
 import type { ProbeRecord, SimResult } from '../../sim/result.js';
 import { nominalLevels } from '../../sim/signals.js';
 import { compareRecords, spectralRun, type SpectralOptions, type SpectralPlan } from '../../sim/spectral/index.js';
+import { keyedRecord } from '../keyed.js';
 
 export interface CrossCheckProbe {
   name: string;
@@ -69,7 +70,7 @@ export function crossCheck(net: Net, result: Pick<SimResult, 'record'>, options:
 
 /** The `crossCheck` section of summary.json (SI units; nothing that changes between runs). */
 export function crossCheckSummary(c: CrossCheckResult): Record<string, unknown> {
-  const probes: Record<string, { maxAbs: number; percentOfSwing: number; time: number }> = {};
+  const probes = keyedRecord<{ maxAbs: number; percentOfSwing: number; time: number }>();
   for (const p of c.probes) probes[p.name] = { maxAbs: p.maxAbs, percentOfSwing: p.percentOfSwing, time: p.time };
   return {
     method: 'spectral: chain (ABCD) matrices of the exact per-length models, numerical Laplace transform (damped FFT)',

@@ -9,6 +9,7 @@ import { joinIndex, joinKey, Problems, ScenarioError, type Problem } from '../sc
 import { Reader } from '../scenario/read.js';
 import type { LineInput } from './evaluate.js';
 import type { CoupledInput } from './coupled.js';
+import { keyedRecord } from '../keyed.js';
 
 export interface LineSources {
   lines: LineInput[];
@@ -101,7 +102,7 @@ export const GEOMETRY_OPTIONS: readonly GeometryKind[] = ['microstrip', 'stripli
 export function lineFromOption(kind: GeometryKind, pairs: string, name: string = kind): LineSources {
   const where = `--${kind}`;
   const problems = new Problems('(command line)');
-  const value: Record<string, unknown> = {};
+  const value = keyedRecord<unknown>();
   const keys = geometryKeys(kind);
   for (const piece of pairs.split(',')) {
     const text = piece.trim();

@@ -7,6 +7,7 @@ import { formatPercent, formatSI } from './format.js';
 import type { CheckLimit, LimitUnit } from './limits.js';
 import { measureProbe, type MeasureOptions, type ProbeMeasurements } from './summary.js';
 import type { Samples } from './levels.js';
+import { keyedRecord } from '../keyed.js';
 
 export const METRIC_NAMES = [
   'overshoot',
@@ -440,7 +441,7 @@ export function checkWaveforms(
   checks: readonly CheckSpec[],
   waveforms: Readonly<Record<string, ProbeWaveform>>,
 ): { measurements: Record<string, ProbeMeasurements>; results: CheckResult[] } {
-  const measurements: Record<string, ProbeMeasurements> = {};
+  const measurements = keyedRecord<ProbeMeasurements>();
   for (const [name, w] of Object.entries(waveforms)) {
     const bands = [...(w.options?.settleBands ?? []), ...requiredSettleBands(checks, name)];
     measurements[name] = measureProbe(w.values, w.dt, { ...w.options, settleBands: dedupeBands(bands) });

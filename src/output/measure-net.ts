@@ -17,6 +17,7 @@ import { netChecks, netLevelMethod, netThresholds } from '../scenario/checks.js'
 import { netSettledLevels, type NetSettledLevels } from './net-levels.js';
 import { measureCrosstalk } from '../measure/crosstalk.js';
 import { aggressorSwing, quietProbes } from './crosstalk.js';
+import { keyedRecord } from '../keyed.js';
 
 export interface NetMeasurements {
   /** Per probe, in probe order. */
@@ -51,7 +52,7 @@ export function measureNet(net: Net, result: SimResult, extraChecks: readonly Ch
   const sourceNominal = nominalLevels(net.driver.signal);
   const checks = netChecks(net);
   const all = [...checks, ...extraChecks];
-  const measurements: Record<string, ProbeMeasurements> = {};
+  const measurements = keyedRecord<ProbeMeasurements>();
   const levels = netLevelMethod(net) === 'settled' ? (settled ?? netSettledLevels(net, result.discretization)) : undefined;
   const quiet = quietProbes(net);
   const swing = quiet.size ? aggressorSwing(net) : null;

@@ -15,6 +15,7 @@ import { crossingLevels, netSettledLevels } from './net-levels.js';
 import { netItems } from '../../sim/route-tree.js';
 import { dtReasonText } from '../engine-text.js';
 import { toolInfo, type ToolInfo } from './tool.js';
+import { keyedRecord } from '../keyed.js';
 
 /** Bumped when a core section changes shape incompatibly. */
 export const SUMMARY_FORMAT = 1;
@@ -86,7 +87,7 @@ export function buildSummary(input: SummaryInput): Summary {
   const { record } = input;
   const samples = record.values.shape[1];
   const rows = probeTraces(record);
-  const probes: Record<string, ProbeStats> = {};
+  const probes = keyedRecord<ProbeStats>();
   const levels = input.crossingLevels ?? crossingLevels(input.net, netSettledLevels(input.net, input.discretization));
   record.names.forEach((name, p) => {
     if (Object.prototype.hasOwnProperty.call(probes, name)) throw new Error(`duplicate probe name '${name}' in the record`);

@@ -31,6 +31,7 @@ import { POSITIVE } from '../units.js';
 import { closest, joinKey, type Pos } from './problems.js';
 import type { SrcNode } from './parse.js';
 import { Obj, type Reader } from './read.js';
+import { keyedRecord } from '../keyed.js';
 
 export const CHECK_KEYS = ['probe', 'metric', 'max', 'min', 'band', 'edges'] as const;
 export const THRESHOLD_KEYS = ['preset', 'vdd', 'vih', 'vil'] as const;
@@ -280,7 +281,7 @@ export function readVerification(
         return;
       }
       const name = probeNames?.[i];
-      if (name !== undefined) (out.probeThresholds ??= {})[name] = t;
+      if (name !== undefined) (out.probeThresholds ??= keyedRecord<LogicThresholds>())[name] = t;
     });
   }
   if (top.has('checks')) {

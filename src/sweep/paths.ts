@@ -226,7 +226,8 @@ export function withValues(root: unknown, assignments: ReadonlyArray<{ path: str
   for (const a of assignments) {
     const r = resolve(copy, parsePath(a.path), a.path);
     if (Array.isArray(r.parent)) r.parent[r.key as number] = a.value;
-    else r.parent[r.key as string] = a.value;
+    // defineProperty: a key named "__proto__" is set as data, never as the object's prototype.
+    else Object.defineProperty(r.parent, r.key as string, { value: a.value, writable: true, enumerable: true, configurable: true });
   }
   return copy;
 }
