@@ -33,7 +33,8 @@ export { probeTrace, probeTraces } from '../sim/result.js';
 export { crossing50, probeStats, type Crossing50, type CrossingLevel, type ProbeStats } from './output/crossing.js';
 export { crossingLevels, netSettledLevels, type NetSettledLevels, type SettledPair } from './output/net-levels.js';
 export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
-export { AtomicBatch, writeFileAtomic, type ChunkSink } from './output/atomic.js';
+export { writeFileAtomic, type ChunkSink } from './output/atomic.js';
+export { checkOutputTarget, writeOutputFolder, type FolderEntry } from './output/folder.js';
 export { toolInfo, type ToolInfo } from './output/tool.js';
 
 // Views, the eye and the HTML report (renderers load on first use).

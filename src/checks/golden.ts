@@ -9,7 +9,7 @@
 // and the probe passes when E ≤ the tolerance. The shifts searched are the multiples of
 // δ = min(Δt_run, Δt_golden) in [−S, S] (and ±S itself); if that would be more than 401 shifts, δ is
 // S/200 instead. E, the shift that gave it and the instant of the largest difference are reported.
-import { readFile } from 'node:fs/promises';
+import { readCapped } from '../scenario/file.js';
 import { basename, extname, join } from 'node:path';
 import { formatSI } from '../measure/index.js';
 
@@ -200,14 +200,20 @@ export function compareWithGolden(
   });
 }
 
-/** Reads a golden file; undefined when it does not exist. Throws GoldenFormatError when it is unreadable. */
+/** Largest golden file read: 256 MiB (a golden file is a probes.csv; JavaScript strings end near 512 MiB). */
+export const MAX_GOLDEN_BYTES = 256 * 1024 ** 2;
+
+/**
+ * Reads a golden file; undefined when it does not exist. Throws GoldenFormatError when it is
+ * unreadable, too large or not a probes.csv. A leading byte-order mark is ignored, as in scenarios.
+ */
 export async function readGolden(path: string): Promise<GoldenRecord | undefined> {
-  let text: string;
-  try {
-    text = await readFile(path, 'utf8');
-  } catch (e) {
-    if ((e as NodeJS.ErrnoException).code === 'ENOENT') return undefined;
-    throw new GoldenFormatError(`${path}: cannot read it (${(e as Error).message})`);
+  const read = await readCapped(path, MAX_GOLDEN_BYTES);
+  if (!read.ok) {
+    if (read.why === 'no such file') return undefined;
+    throw new GoldenFormatError(`${path}: cannot read it (${read.why})`);
   }
+  let text = read.bytes.toString('utf8');
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   return parseGoldenCsv(text, path);
 }

@@ -1,14 +1,15 @@
 // `ladderwave check` as a library: run every scenario, measure its probes, evaluate its checks and
 // optionally compare with (or update) golden waveforms. One report per scenario, in argument order.
-import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
-import { simulate } from '../../sim/simulate.js';
+import { prepareFileTarget } from '../output/folder.js';
+import { simulateSized } from '../size-limits.js';
+import type { RunLimits } from '../../sim/limits.js';
 import { EXIT, describeFailure, worstExitCode, type ExitCode } from '../exit-codes.js';
 import { writeFileAtomic } from '../output/atomic.js';
 import { formatSI } from '../units.js';
 import { writeCsv } from '../output/csv.js';
 import { probeTraces } from '../../sim/result.js';
-import { readScenarioFile } from '../output/run.js';
+import { readScenarioFile, withPositions } from '../output/run.js';
 import { netChecks } from '../scenario/checks.js';
 import { compareWithGolden, describeGoldenLimit, GoldenFormatError, goldenPath, readGolden, scenarioBaseName, type CompareOptions, type GoldenCheck, type GoldenRecord } from './golden.js';
 import type { GoldenFailure } from './golden-plot.js';
@@ -62,6 +63,8 @@ export interface CheckRunOptions {
   golden?: GoldenOptions;
   /** Run even when a size limit would be exceeded. */
   force?: boolean;
+  /** Advisory size limits (default sim/limits DEFAULT_LIMITS). */
+  limits?: Partial<RunLimits>;
   /** Called after each scenario (for progress output). */
   onScenario?: (report: ScenarioReport, index: number, total: number) => void;
 }
@@ -120,7 +123,7 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
     const { net } = scenario;
     report.title = net.title;
     report.sha256 = scenario.sha256;
-    const result = simulate(net, { force: opts.force });
+    const result = await withPositions(scenario, async () => simulateSized(net, { force: opts.force, limits: opts.limits }));
     const { results } = measureNet(net, result);
     for (const r of results) {
       report.rows.push({ kind: 'check', probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: tableValue(r.measured, r.unit, r.measuredText), pass: r.pass, message: r.message });
@@ -130,7 +133,7 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
       const g = opts.golden;
       const path = goldenPath(g.dir, file);
       if (g.update) {
-        await mkdir(g.dir, { recursive: true });
+        await prepareFileTarget(path);
         await writeFileAtomic(path, (sink) => writeCsv(result.record, sink));
         report.notes.push(`golden file written: ${path}`);
       } else {
@@ -139,9 +142,12 @@ export async function checkScenarioFile(file: string, opts: CheckRunOptions = {}
         try {
           golden = await readGolden(path);
         } catch (e) {
+          // A golden file that is not a probes.csv is bad input (exit 2), not a failed comparison.
           if (!(e instanceof GoldenFormatError)) throw e;
-          golden = null;
-          report.rows.push({ kind: 'golden', probe: '*', metric: 'golden', limit: describeGoldenLimit(g), measured: null, measuredText: 'n/a', pass: false, message: `${e.message}; ${hint}` });
+          report.error = { code: EXIT.badInput, lines: [e.message, `  ${hint}`] };
+          report.verdict = 'error';
+          report.seconds = (performance.now() - t0) / 1000;
+          return report;
         }
         if (golden === undefined) {
           report.rows.push({
@@ -201,8 +207,8 @@ async function writeGoldenPlot(
   if (failures.length === 0) return null;
   const { renderGoldenOverlay } = await import('./golden-plot.js');
   const png = renderGoldenOverlay({ title, dt, goldenTimes: golden.times, failures, tolerance });
-  await mkdir(dir, { recursive: true });
   const path = join(dir, `${scenarioBaseName(file)}.png`);
+  await prepareFileTarget(path);
   await writeFileAtomic(path, png);
   return path;
 }

@@ -16,6 +16,7 @@ import { registerTameCommand } from './commands/tame.js';
 import type { CliContext } from './context.js';
 import { EXIT, type ExitCode } from '../exit-codes.js';
 import { processIO, type CliIO } from './io.js';
+import type { RunLimits } from '../../sim/limits.js';
 
 export function createProgram(ctx: CliContext): Command {
   const program = new Command('ladderwave')
@@ -46,13 +47,14 @@ export function createProgram(ctx: CliContext): Command {
 
 export interface RunCliOptions {
   io?: CliIO;
-  guardWrites?: CliContext['guardWrites'];
   onInterrupt?: CliContext['onInterrupt'];
+  /** Lower advisory size limits than the defaults (embedding, tests); --force still lifts them. */
+  limits?: Partial<RunLimits>;
 }
 
 /** Runs the CLI on `args` (without the node and script paths) and returns the exit code. */
 export async function runCli(args: readonly string[], options: RunCliOptions = {}): Promise<ExitCode> {
-  const ctx: CliContext = { io: options.io ?? processIO, exitCode: EXIT.ok, guardWrites: options.guardWrites, onInterrupt: options.onInterrupt };
+  const ctx: CliContext = { io: options.io ?? processIO, exitCode: EXIT.ok, onInterrupt: options.onInterrupt, limits: options.limits };
   const program = createProgram(ctx);
   try {
     await program.parseAsync([...args], { from: 'user' });

@@ -1,11 +1,9 @@
 // `ladderwave run --cross-check`: after the time-domain run, solve the same net spectrally, add a
 // "crossCheck" section to summary.json (through the run's extendSummary hook, before anything is
-// written) and write crosscheck.png next to the other outputs.
-import { join } from 'node:path';
+// written) and add crosscheck.png to the run's files (through its extraFiles hook).
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
-import { writeFileAtomic } from '../output/atomic.js';
-import { OutputError } from '../output/run.js';
+import type { OutputFile } from '../output/run.js';
 import { addSummarySection, type Summary } from '../output/summary.js';
 import { crossCheck, crossCheckSummary, type CrossCheckResult } from './crosscheck.js';
 import { CROSSCHECK_FILE, renderCrossCheck } from './plot.js';
@@ -16,8 +14,8 @@ const FORCED_MAX_POINTS = 2 ** 24;
 export interface CrossCheckRun {
   /** Pass as RunOptions.extendSummary. */
   extendSummary(ctx: { net: Net; result: SimResult; summary: Summary }): Promise<void>;
-  /** Writes crosscheck.png into the run's output folder (after the run's own files); returns its path. */
-  write(outDir: string): Promise<string>;
+  /** crosscheck.png, for RunOptions.extraFiles (written with the run's other files). */
+  files(): OutputFile[];
   /** The comparison, once extendSummary has run. */
   readonly result: CrossCheckResult | undefined;
 }
@@ -35,15 +33,9 @@ export function crossCheckRun(options: { force?: boolean; width?: number; height
       addSummarySection(summary, 'crossCheck', crossCheckSummary(result));
       png = await renderCrossCheck({ title: net.title, timeDomain: td.record, check: result, width: options.width, height: options.height });
     },
-    async write(outDir) {
-      if (!png) throw new Error('crossCheckRun.write before extendSummary');
-      const target = join(outDir, CROSSCHECK_FILE);
-      try {
-        await writeFileAtomic(target, png);
-      } catch (e) {
-        throw new OutputError(`cannot write ${target}: ${(e as Error).message}`, e);
-      }
-      return target;
+    files() {
+      if (!png) throw new Error('crossCheckRun.files before extendSummary');
+      return [{ path: CROSSCHECK_FILE, data: png }];
     },
   };
 }

@@ -6,38 +6,113 @@
 // temporary file still in flight is listed in a registry so that a signal handler (see the CLI)
 // can remove them before the process exits.
 import { randomBytes } from 'node:crypto';
-import { unlinkSync } from 'node:fs';
+import { readdirSync, rmSync } from 'node:fs';
 import { open, rename, unlink } from 'node:fs/promises';
 import { basename, dirname, join } from 'node:path';
 
-/** Temporary files created by this process and not yet renamed or removed. */
+/**
+ * Temporary files and folders created by this process and not yet renamed or removed. Process-wide on
+ * purpose: a signal handler must find every one of them.
+ */
 const pending = new Set<string>();
+
+/** What the CLI installs while temporaries exist: signal handlers that remove them before exiting. */
+export interface InterruptGuard {
+  install(): void;
+  remove(): void;
+}
+
+let guard: InterruptGuard | undefined;
+
+/**
+ * Installs `g` whenever this process has temporaries on disk (and removes it when none are left), so
+ * that an interruption cleans them up; outside those moments signals keep their default action. The
+ * CLI sets it once at start; a library user may leave it unset.
+ */
+export function setInterruptGuard(g: InterruptGuard | undefined): void {
+  if (guard && pending.size > 0) guard.remove();
+  guard = g;
+  if (guard && pending.size > 0) guard.install();
+}
+
+/** Lists a temporary path (file or folder) for removal on interruption; call before creating it. */
+export function registerTemporary(path: string): void {
+  pending.add(path);
+  if (pending.size === 1) guard?.install();
+}
+
+/** The temporary path was renamed into place or removed. */
+export function forgetTemporary(path: string): void {
+  if (!pending.delete(path)) return;
+  if (pending.size === 0) guard?.remove();
+}
 
 /** The temporary name used for `target`: same folder, hidden, `.tmp` suffix. */
 export function tempPathFor(target: string): string {
   return join(dirname(target), `.${basename(target)}.${process.pid}-${randomBytes(4).toString('hex')}.tmp`);
 }
 
-/** Removes every temporary file still in flight (synchronously, for use in signal and exit handlers). */
+/** Removes every temporary file and folder still in flight (synchronously, for signal and exit handlers). */
 export function removePendingTempFilesSync(): void {
-  for (const p of pending) {
+  for (const p of [...pending]) {
     try {
-      unlinkSync(p);
+      rmSync(p, { recursive: true, force: true });
     } catch {
-      // already gone
+      // already gone, or not removable: nothing more can be done while exiting
     }
-    pending.delete(p);
+    forgetTemporary(p);
   }
 }
 
-/** Temporary files currently in flight (for tests and diagnostics). */
+/** Temporary files and folders currently in flight (for tests and diagnostics). */
 export function pendingTempFiles(): string[] {
   return [...pending];
 }
 
+/** Whether process `pid` is still running (EPERM: it is, under another user). */
+export function processAlive(pid: number): boolean {
+  if (pid === process.pid) return true;
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/**
+ * Removes, in `folder`, the temporaries named by `pattern` (its first group the pid) that a process
+ * no longer running left behind (killed with SIGKILL, or by a power cut).
+ */
+export function removeStaleTemporaries(folder: string, pattern: RegExp): string[] {
+  let names: string[];
+  try {
+    names = readdirSync(folder);
+  } catch {
+    return [];
+  }
+  const removed: string[] = [];
+  for (const name of names) {
+    const m = pattern.exec(name);
+    if (!m || processAlive(Number(m[1]))) continue;
+    try {
+      rmSync(join(folder, name), { recursive: true, force: true });
+      removed.push(name);
+    } catch {
+      // someone else's, or already gone
+    }
+  }
+  return removed;
+}
+
+/** `.<target>.<pid>-<hex>.tmp` of tempPathFor, with the pid as group 1. */
+function staleFilePattern(target: string): RegExp {
+  return new RegExp(`^\\.${basename(target).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(\\d+)-[0-9a-f]+\\.tmp$`);
+}
+
 async function removeQuietly(path: string): Promise<void> {
-  pending.delete(path);
   await unlink(path).catch(() => undefined);
+  forgetTemporary(path);
 }
 
 /** Where a producer pushes its output: each write is complete when its promise resolves. */
@@ -52,10 +127,17 @@ export interface ChunkSink {
  */
 export async function writeTemp(target: string, produce: (sink: ChunkSink) => Promise<void> | void): Promise<string> {
   const tmp = tempPathFor(target);
-  // 'wx': never overwrite an existing file with our temporary one. Opened before anything is
-  // written, so the temporary file exists (and is registered) for the whole write.
-  const fh = await open(tmp, 'wx');
-  pending.add(tmp);
+  removeStaleTemporaries(dirname(target), staleFilePattern(target));
+  // 'wx': never overwrite an existing file with our temporary one. Registered before it is created,
+  // so an interruption at any moment of the write removes it.
+  registerTemporary(tmp);
+  let fh;
+  try {
+    fh = await open(tmp, 'wx');
+  } catch (e) {
+    forgetTemporary(tmp);
+    throw e;
+  }
   const sink: ChunkSink = {
     async write(chunk) {
       const buf = typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : chunk;
@@ -83,7 +165,7 @@ export async function writeTemp(target: string, produce: (sink: ChunkSink) => Pr
 export async function commitTemp(tmp: string, target: string): Promise<void> {
   try {
     await rename(tmp, target);
-    pending.delete(tmp);
+    forgetTemporary(tmp);
   } catch (e) {
     await removeQuietly(tmp);
     throw e;
@@ -103,51 +185,4 @@ export async function writeFileAtomic(
   const produce = typeof data === 'function' ? data : (sink: ChunkSink) => sink.write(data);
   const tmp = await writeTemp(target, produce);
   await commitTemp(tmp, target);
-}
-
-/**
- * Several files that appear together or not at all (as far as rename allows): each is written to its
- * temporary name first; only when every one has been written are they renamed, in the order staged.
- * Stage the file that marks a complete output (summary.json) last. If any write fails, all
- * temporary files are removed and no target is touched.
- */
-export class AtomicBatch {
-  private readonly staged: { tmp: string; target: string }[] = [];
-  private closed = false;
-
-  async stage(target: string, data: string | Uint8Array | ((sink: ChunkSink) => Promise<void> | void)): Promise<void> {
-    if (this.closed) throw new Error('AtomicBatch: already committed or aborted');
-    const produce = typeof data === 'function' ? data : (sink: ChunkSink) => sink.write(data);
-    try {
-      const tmp = await writeTemp(target, produce);
-      this.staged.push({ tmp, target });
-    } catch (e) {
-      await this.abort();
-      throw e;
-    }
-  }
-
-  /** Renames every staged file to its target; returns the targets. */
-  async commit(): Promise<string[]> {
-    if (this.closed) throw new Error('AtomicBatch: already committed or aborted');
-    this.closed = true;
-    const done: string[] = [];
-    try {
-      for (const { tmp, target } of this.staged) {
-        await commitTemp(tmp, target);
-        done.push(target);
-      }
-    } catch (e) {
-      for (const { tmp } of this.staged) await removeQuietly(tmp);
-      throw e;
-    }
-    return done;
-  }
-
-  /** Removes every staged temporary file. */
-  async abort(): Promise<void> {
-    this.closed = true;
-    for (const { tmp } of this.staged) await removeQuietly(tmp);
-    this.staged.length = 0;
-  }
 }

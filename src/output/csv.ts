@@ -3,12 +3,17 @@
 // Numbers are written in full precision with JavaScript's shortest round-trip formatting
 // (`String(x)`: parsing the text gives back the identical double). Sample i's time is computed as
 // i·dtSample, never accumulated, so it carries no drift. Long records are produced in chunks of
-// rows so that no single string grows beyond a few megabytes.
+// rows so that no single string grows beyond a few megabytes, however many probes there are.
 import { probeTraces, type ProbeRecord } from '../../sim/result.js';
 import type { ChunkSink } from './atomic.js';
 
-/** Rows per chunk: about 25 bytes a value, so a few MB per chunk for a handful of probes. */
-export const DEFAULT_ROWS_PER_CHUNK = 8192;
+/** Characters per chunk, about: each chunk is one string, and strings end near 512 MiB. */
+export const CHUNK_CHARS = 4 * 1024 ** 2;
+
+/** Rows per chunk for `probes` probes: at most about 25 characters a value, CHUNK_CHARS a chunk. */
+export function rowsPerChunk(probes: number): number {
+  return Math.max(1, Math.floor(CHUNK_CHARS / (25 * (probes + 1))));
+}
 
 /** RFC 4180 quoting for a header field that needs it (comma, quote, CR or LF). */
 export function csvField(text: string): string {
@@ -25,8 +30,10 @@ export function formatNumber(x: number): string {
 }
 
 
-/** The CSV text in chunks: first the header, then blocks of `rowsPerChunk` rows. */
-export function* csvChunks(record: ProbeRecord, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Generator<string> {
+const rowsPerChunkFor = (record: ProbeRecord) => rowsPerChunk(record.names.length);
+
+/** The CSV text in chunks: first the header, then blocks of `rowsPerChunk` rows (a few MB each). */
+export function* csvChunks(record: ProbeRecord, rowsPerChunk = rowsPerChunkFor(record)): Generator<string> {
   const rows = probeTraces(record);
   const samples = record.values.shape[1];
   const dt = record.dtSample;
@@ -52,6 +59,6 @@ export function probeRecordToCsv(record: ProbeRecord): string {
 }
 
 /** Writes the CSV into a sink chunk by chunk, waiting for the sink between chunks. */
-export async function writeCsv(record: ProbeRecord, sink: ChunkSink, rowsPerChunk = DEFAULT_ROWS_PER_CHUNK): Promise<void> {
+export async function writeCsv(record: ProbeRecord, sink: ChunkSink, rowsPerChunk = rowsPerChunkFor(record)): Promise<void> {
   for (const chunk of csvChunks(record, rowsPerChunk)) await sink.write(chunk);
 }

@@ -4,18 +4,20 @@
 // folder is created.
 import type { Net } from '../../sim/model.js';
 import type { SimResult } from '../../sim/result.js';
-import { simulate, type SimulateOptions } from '../../sim/simulate.js';
+import type { SimulateOptions } from '../../sim/simulate.js';
+import { simulateSized } from '../size-limits.js';
 import type { EyeMeasurement } from '../views/eye.js';
 import { scenarioThresholds } from '../views/draw.js';
 import { defaultEyeProbe, eyeInputOf, eyeRunDuration, eyeUnavailableReason } from '../views/eye.js';
-import { OutputError, readScenarioFile, writeRunFiles, type LoadedScenario } from './run.js';
+import { RequestError } from './errors.js';
+import { checkOutputTarget, OutputError, readScenarioFile, withPositions, writeRunFiles, type LoadedScenario } from './run.js';
 import { addSummarySection, buildSummary, summaryToJson, type Summary } from './summary.js';
 
 /** File names the eye command writes. */
 export const EYE_FILES = { png: 'eye.png', summary: 'summary.json' } as const;
 
 /** A request the scenario cannot satisfy (no bits or clock signal, no such probe). */
-export class EyeRequestError extends Error {
+export class EyeRequestError extends RequestError {
   constructor(message: string) {
     super(message);
     this.name = 'EyeRequestError';
@@ -61,7 +63,13 @@ export function eyeNet(net: Net, probe?: string): { net: Net; probe: string } {
 export async function eyeScenarioFile(file: string, outDir: string, options: EyeRunOptions = {}): Promise<EyeRunReport> {
   const scenario = await readScenarioFile(file);
   const { net, probe } = eyeNet(scenario.net, options.probe);
-  const result = simulate(net, { force: options.force, limits: options.limits });
+  await checkOutputTarget(outDir);
+  return withPositions(scenario, () => eyeLoaded(scenario, net, probe, outDir, options));
+}
+
+async function eyeLoaded(scenario: LoadedScenario, net: Net, probe: string, outDir: string, options: EyeRunOptions): Promise<EyeRunReport> {
+  const { file } = scenario;
+  const result = simulateSized(net, { force: options.force, limits: options.limits });
   const summary = buildSummary({
     scenario: { file, sha256: scenario.sha256, title: net.title },
     net,

@@ -2,22 +2,24 @@
 // probes.csv, waveforms.png and summary.json in an output folder; optionally further views (map.png,
 // bounce.png, eye.png), animation frames (frames/frame-0001.png …) and report.html.
 //
-// Everything that can fail because of the input (reading and validating the scenario, the size
-// limits, building the network, rendering) happens before the output folder is created, so bad
-// input leaves nothing behind. The files are then written to temporary names and renamed
-// together, summary.json last; if writing fails, the temporary files (and a folder this run
-// created) are removed.
-import { readdir, mkdir, rmdir, unlink } from 'node:fs/promises';
-import { dirname, join, resolve, sep } from 'node:path';
+// Everything that can fail because of the input (reading and validating the scenario, the output
+// folder's place, the size limits, building the network, rendering) happens before anything is
+// written, so bad input leaves nothing behind. The files are then written as one folder that
+// replaces the previous one as a whole (folder.ts): a reader sees all of one run's files or none.
+import { join } from 'node:path';
 import type { Net } from '../../sim/model.js';
 import ndarray from 'ndarray';
 import { probeTrace, probeTraces, type ProbeRecord, type SimResult } from '../../sim/result.js';
-import { simulate, type SimulateOptions } from '../../sim/simulate.js';
+import type { SimulateOptions } from '../../sim/simulate.js';
+import { simulateSized } from '../size-limits.js';
 import type { ViewName } from '../views/select.js';
 import type { EyeViewOptions } from '../views/draw.js';
 import { readScenario } from '../scenario/load.js';
-import type { Problem } from '../scenario/problems.js';
-import { AtomicBatch, type ChunkSink } from './atomic.js';
+import type { Pos, Problem } from '../scenario/problems.js';
+import { locatePath, type LocatedNetProblem } from '../scenario/locate.js';
+import { NetError } from '../../sim/errors.js';
+import { checkOutputTarget, writeOutputFolder, type FolderEntry } from './folder.js';
+import { OutputError } from './errors.js';
 import { writeCsv } from './csv.js';
 import { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary } from './summary.js';
 import { addMeasurementSections } from './measurement-sections.js';
@@ -30,13 +32,8 @@ import { crosstalkSection } from './crosstalk.js';
 /** File names inside an output folder. */
 export const OUTPUT_FILES = { csv: 'probes.csv', png: 'waveforms.png', summary: 'summary.json' } as const;
 
-/** The outputs could not be written (folder not creatable, disk full, permissions). */
-export class OutputError extends Error {
-  constructor(message: string, cause?: unknown) {
-    super(message, { cause });
-    this.name = 'OutputError';
-  }
-}
+export { OutputError } from './errors.js';
+export { checkOutputTarget, writeOutputFolder, type FolderEntry } from './folder.js';
 
 export interface LoadedScenario {
   /** The path as given. */
@@ -46,6 +43,8 @@ export interface LoadedScenario {
   sha256: string;
   /** Allowed but probably unintended things in the file. */
   warnings: Problem[];
+  /** Where a key path (`route[2]`, `receiver`, an item's name) is in the file, for messages. */
+  locate(path: string): Pos | undefined;
 }
 
 /**
@@ -53,8 +52,26 @@ export interface LoadedScenario {
  * Throws ScenarioError listing every problem, including an unreadable file.
  */
 export async function readScenarioFile(file: string): Promise<LoadedScenario> {
-  const { net, bytes, warnings } = await readScenario(file);
-  return { file, net, sha256: sha256Hex(bytes), warnings };
+  const { net, bytes, warnings, root } = await readScenario(file);
+  return { file, net, sha256: sha256Hex(bytes), warnings, locate: (path) => locatePath(root, path) };
+}
+
+/**
+ * Runs `work` on a loaded scenario; a NetError it throws (a net the engine cannot simulate) comes
+ * out with the line:column of each problem's item in the scenario file.
+ */
+export async function withPositions<T>(scenario: LoadedScenario, work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (e) {
+    if (!(e instanceof NetError)) throw e;
+    throw new NetError(
+      e.problems.map((p): LocatedNetProblem => {
+        const pos = scenario.locate(p.path);
+        return pos ? { ...p, line: pos.line, col: pos.col } : p;
+      }),
+    );
+  }
 }
 
 export type RunPhase = 'load' | 'simulate' | 'render' | 'write';
@@ -86,6 +103,11 @@ export interface RunOptions extends SimulateOptions {
   eye?: EyeViewOptions;
   /** The receiver whose path the bounce view follows on a branched net (default: the main receiver). */
   path?: string;
+  /**
+   * Further files for the output folder (for example crosscheck.png), asked for after extendSummary
+   * and written with the others.
+   */
+  extraFiles?: () => readonly OutputFile[];
 }
 
 export interface RunReport {
@@ -141,19 +163,28 @@ export interface OutputFile {
 }
 
 /**
- * Writes probes.csv, waveforms.png (from `png`) and summary.json into `outDir`, creating it if
- * needed. All or nothing: on failure no new file appears under a final name, and a folder this call
- * created is removed again. Returns the paths written.
+ * Writes probes.csv, waveforms.png (from `png`) and summary.json as the content of `outDir`
+ * (writeOutputFolder: all or nothing, replacing a previous run's folder as a whole). Returns the
+ * paths written.
  */
 export async function writeRunOutputs(outDir: string, outputs: RunOutputs, png: Uint8Array): Promise<string[]> {
   return writeRunFiles(outDir, outputs, [{ path: OUTPUT_FILES.png, data: png }]);
 }
 
 /**
- * Writes probes.csv (unless `csv` is false), then `files` (relative paths; subfolders such as frames/
- * are created), then summary.json (`summaryJson` when given, else serialized from `outputs.summary`)
- * into `outDir`. All or nothing, as writeRunOutputs. Returns the paths written, in order.
+ * The entries of a run's folder: probes.csv (unless `csv` is false), then `files` (relative paths;
+ * subfolders such as frames/ are created), then summary.json (`summaryJson` when given, else
+ * serialized from `outputs.summary`).
  */
+export function runFolderEntries(outputs: RunOutputs, files: readonly OutputFile[], summaryJson?: string, opts: { csv?: boolean } = {}): FolderEntry[] {
+  const entries: FolderEntry[] = [];
+  if (opts.csv ?? true) entries.push({ path: OUTPUT_FILES.csv, data: (sink) => writeCsv(outputs.result.record, sink) });
+  entries.push(...files);
+  entries.push({ path: OUTPUT_FILES.summary, data: summaryJson ?? summaryToJson(outputs.summary) });
+  return entries;
+}
+
+/** Writes runFolderEntries as the content of `outDir` (all or nothing, as writeRunOutputs). Returns the paths written, in order. */
 export async function writeRunFiles(
   outDir: string,
   outputs: RunOutputs,
@@ -161,63 +192,7 @@ export async function writeRunFiles(
   summaryJson?: string,
   opts: { csv?: boolean } = {},
 ): Promise<string[]> {
-  const entries: FolderEntry[] = [];
-  if (opts.csv ?? true) entries.push({ path: OUTPUT_FILES.csv, data: (sink) => writeCsv(outputs.result.record, sink) });
-  entries.push(...files);
-  entries.push({ path: OUTPUT_FILES.summary, data: summaryJson ?? summaryToJson(outputs.summary) });
-  return writeOutputFolder(outDir, entries);
-}
-
-/** One file of an output folder: a path inside it and its content (or a writer of its content). */
-export interface FolderEntry {
-  path: string;
-  data: string | Uint8Array | ((sink: ChunkSink) => Promise<void> | void);
-}
-
-/**
- * Writes the files into `outDir` together: each to a temporary name, then all renamed. If anything
- * fails, the temporary files and the folders this call created are removed, and OutputError is thrown.
- */
-export async function writeOutputFolder(outDir: string, entries: readonly FolderEntry[]): Promise<string[]> {
-  let created: string | undefined;
-  try {
-    created = await mkdir(outDir, { recursive: true });
-  } catch (e) {
-    throw new OutputError(`cannot create the output folder ${outDir}: ${(e as Error).message}`, e);
-  }
-  const batch = new AtomicBatch();
-  const madeSubfolders: string[] = [];
-  try {
-    for (const f of entries) {
-      const target = join(outDir, f.path);
-      const folder = dirname(target);
-      if (resolve(folder) !== resolve(outDir)) {
-        const made = await mkdir(folder, { recursive: true });
-        if (made) madeSubfolders.push(made);
-      }
-      await batch.stage(target, f.data);
-    }
-    return await batch.commit();
-  } catch (e) {
-    await batch.abort();
-    for (const made of madeSubfolders.reverse()) await rmdir(made).catch(() => undefined);
-    if (created) await removeCreatedFolders(created, outDir);
-    throw new OutputError(`cannot write the outputs in ${outDir}: ${(e as Error).message}`, e);
-  }
-}
-
-/** Removes the empty folders from `leaf` up to and including `top` (what mkdir -p created). */
-async function removeCreatedFolders(top: string, leaf: string): Promise<void> {
-  const topAbs = resolve(top);
-  let dir = resolve(leaf);
-  while (dir === topAbs || dir.startsWith(topAbs + sep)) {
-    try {
-      await rmdir(dir); // only succeeds on an empty folder
-    } catch {
-      return;
-    }
-    dir = dirname(dir);
-  }
+  return writeOutputFolder(outDir, runFolderEntries(outputs, files, summaryJson, opts));
 }
 
 /** The record restricted to the named probes, in that order (the views may have simulated extra ones). */
@@ -229,21 +204,6 @@ export function selectProbes(record: ProbeRecord, names: readonly string[]): Pro
   return { names: [...names], dtSample: record.dtSample, values: ndarray(data, [names.length, n]) };
 }
 
-/** Removes frame files in `folder` beyond the `count` just written (left over from a run with more frames). */
-async function removeStaleFrames(folder: string, count: number): Promise<void> {
-  const { FRAME_FILE_PATTERN } = await import('../views/frames.js');
-  let names: string[];
-  try {
-    names = await readdir(folder);
-  } catch {
-    return;
-  }
-  for (const name of names) {
-    const m = FRAME_FILE_PATTERN.exec(name);
-    if (m && Number(m[1]) > count) await unlink(join(folder, name)).catch(() => undefined);
-  }
-}
-
 /**
  * Load → simulate → render → write. Throws ScenarioError (bad file), NetError (a net that cannot
  * be simulated), RunRefused (over a size limit, unless `force`), or OutputError (cannot write);
@@ -253,7 +213,13 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const t0 = performance.now();
   options.onPhase?.('load');
   const scenario = await readScenarioFile(file);
-  const { net } = scenario;
+  // Before any work: an output folder that cannot be written fails now, not after the simulation.
+  await checkOutputTarget(outDir);
+  return withPositions(scenario, () => runLoaded(scenario, outDir, options, t0));
+}
+
+async function runLoaded(scenario: LoadedScenario, outDir: string, options: RunOptions, t0: number): Promise<RunReport> {
+  const { net, file } = scenario;
   const { planViews } = await import('../views/select.js');
   const plan = planViews(net, options.views ?? ['waveforms'], options.frames ?? 0, options.path);
   const frames = plan.framesSkipped === null ? (options.frames ?? 0) : 0;
@@ -264,7 +230,7 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   const views = plan.views.includes('bounce') ? await import('../views/bounce.js') : undefined;
   // Every receiver is measured: a branched net gets a probe at each receiver that has none.
   const simNet = withReceiverProbes(views ? views.withEndProbes(net, options.path) : net);
-  const result = simulate(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap || options.explore ? {} : undefined });
+  const result = simulateSized(simNet, { force: options.force, limits: options.limits, routeMap: plan.routeMap || options.explore ? {} : undefined });
   const simSeconds = (performance.now() - t1) / 1000;
   const record = selectProbes(result.record, net.probes.map((p) => p.name));
   const userResult: SimResult = { ...result, record };
@@ -336,8 +302,8 @@ export async function runScenarioFile(file: string, outDir: string, options: Run
   }
 
   options.onPhase?.('write');
-  const written = await writeRunFiles(outDir, { title: net.title, result: userResult, summary }, [...files, ...frameFiles, ...reportFiles], summaryJson);
-  if (framesDir) await removeStaleFrames(join(outDir, framesDir), frames);
+  const extra = options.extraFiles?.() ?? [];
+  const written = await writeRunFiles(outDir, { title: net.title, result: userResult, summary }, [...files, ...frameFiles, ...reportFiles, ...extra], summaryJson);
   const frameSet = new Set(frameFiles.map((f) => join(outDir, f.path)));
   return {
     scenario,

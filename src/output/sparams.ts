@@ -12,7 +12,7 @@ import { UsageError } from '../exit-codes.js';
 import { formatTouchstone } from '../touchstone/write.js';
 import type { NumberFormat } from '../touchstone/options.js';
 import { renderSparams } from '../views/sparams.js';
-import { readScenarioFile, writeOutputFolder, type LoadedScenario } from './run.js';
+import { checkOutputTarget, readScenarioFile, writeOutputFolder, type LoadedScenario } from './run.js';
 import { toolInfo } from './tool.js';
 
 export const SPARAMS_FILES = { touchstone: 'sparams.s2p', png: 'sparams.png', summary: 'sparams.json' } as const;
@@ -99,6 +99,7 @@ function summarize(network: NetworkData, grid: GridSpec, stretch: SparamsSummary
 export async function runSparamsFile(file: string, outDir: string, options: SparamsRunOptions = {}): Promise<SparamsReport> {
   options.onPhase?.('load');
   const scenario = await readScenarioFile(file);
+  await checkOutputTarget(outDir);
   options.onPhase?.('compute');
   const { network, summary } = computeSparams(scenario.net, options);
   const version = options.version ?? '1.1';

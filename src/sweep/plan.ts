@@ -240,12 +240,15 @@ export function pointScenarioValue(plan: SweepPlan, i: number): unknown {
   );
 }
 
-/** Point `i` as a validated net. Throws ScenarioError naming the point and its values. */
+/** Point `i` as a validated net. Throws ScenarioError whose problems name the point and its values. */
 export function pointNet(plan: SweepPlan, i: number): Net {
-  const label = `${plan.scenario.file} (point ${i}: ${describeAssignments(pointAssignments(plan, i))})`;
-  const r = checkScenarioValue(pointScenarioValue(plan, i), label);
-  if (!r.net) throw new ScenarioError(r.problems, r.warnings);
-  return r.net;
+  const r = checkScenarioValue(pointScenarioValue(plan, i), plan.scenario.file);
+  if (r.net) return r.net;
+  const at = ` (at point ${i}: ${describeAssignments(pointAssignments(plan, i))})`;
+  throw new ScenarioError(
+    r.problems.map((p) => ({ ...p, expected: p.expected + at })),
+    r.warnings,
+  );
 }
 
 /**

@@ -63,7 +63,7 @@ export function startWorker(workerData: unknown): Worker {
 export async function runPoints(plan: SweepPlan, indices: readonly number[], opts: RunPointsOptions = {}): Promise<SweepRow[]> {
   const total = indices.length;
   const jobs = Math.max(1, Math.min(opts.jobs ?? defaultJobs(), total));
-  const options: PointOptions = { force: opts.force };
+  const options: PointOptions = { force: opts.force, limits: opts.limits };
   if (total === 0) return [];
   if (jobs === 1) {
     const rows: SweepRow[] = [];

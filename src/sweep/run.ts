@@ -11,12 +11,12 @@
 //   explore.html with --explore: the interactive page, overlaying chosen points' waveforms
 // A shard (--shard K/N) writes only its rows of sweep.csv and a sweep.json naming the shard;
 // merging the N shard folders writes exactly the files the whole sweep writes.
-import { mkdir, readFile } from 'node:fs/promises';
+import { readCapped } from '../scenario/file.js';
+import { validateSweepFile } from './sweep-file.js';
 import { basename, extname, join } from 'node:path';
-import { simulate } from '../../sim/simulate.js';
+import { simulateSized } from '../size-limits.js';
 import { addMeasurementSections } from '../output/measurement-sections.js';
-import { AtomicBatch } from '../output/atomic.js';
-import { renderResult, writeRunOutputs, OUTPUT_FILES } from '../output/run.js';
+import { checkOutputTarget, renderResult, runFolderEntries, writeOutputFolder, OUTPUT_FILES, type FolderEntry } from '../output/run.js';
 import { buildSummary } from '../output/summary.js';
 import { measureNet } from '../output/measure-net.js';
 import { crossingLevels, netSettledLevels } from '../output/net-levels.js';
@@ -24,13 +24,19 @@ import { toolInfo, type ToolInfo } from '../output/tool.js';
 import { ScenarioError } from '../scenario/problems.js';
 import { netChecks } from '../scenario/checks.js';
 import { decidingCheck } from './columns.js';
+import { readScenario } from '../scenario/load.js';
+import { locateNetProblems, locateProblems } from '../scenario/locate.js';
+import { NetError } from '../../sim/errors.js';
+import type { RunLimits } from '../../sim/limits.js';
 import { parsePick, selectBest } from './pick.js';
 import { describeAssignments, paramColumn, planSweep, pointAssignments, pointNet, pointProblems, type Shard, type SweepPlan, type SweepRequest } from './plan.js';
 import type { SweepRow } from './point.js';
 import { renderSweepPlot } from './plot.js';
 import { runPoints } from './pool.js';
-import { parseShard, shardPoints } from './spec.js';
-import { formatSweepCsv, parseSweepCsv, SweepCsvError } from './table.js';
+import { parseShard, shardPointCount, shardPoints } from './spec.js';
+import { checkSweepSize } from './size.js';
+import { parseSweepCsv, sweepCsvChunks, SweepCsvError } from './table.js';
+import { keyedRecord } from '../keyed.js';
 
 export const SWEEP_FILES = { csv: 'sweep.csv', png: 'sweep.png', json: 'sweep.json', best: 'best', worst: 'worst', explore: 'explore.html' } as const;
 
@@ -110,6 +116,8 @@ export interface SweepRunOptions {
   out: string;
   jobs?: number;
   force?: boolean;
+  /** Advisory size limits of each point's run (default sim/limits DEFAULT_LIMITS). */
+  limits?: Partial<RunLimits>;
   onProgress?: (done: number, total: number) => void;
   width?: number;
   height?: number;
@@ -117,17 +125,19 @@ export interface SweepRunOptions {
   explore?: boolean;
 }
 
-/** Default output folder: out/<scenario name>-sweep (a shard: …/shard-K-of-N under it). */
+/**
+ * Default output folder: out/<scenario name>-sweep; a shard's beside it, out/<scenario name>-sweep-shard-K-of-N
+ * (not inside: the merged folder replaces the whole of out/<scenario name>-sweep).
+ */
 export function defaultSweepFolder(file: string, shard: Shard | null): string {
   const b = basename(file);
   const ext = extname(b);
   const name = ext && ext !== b ? b.slice(0, -ext.length) : b;
-  const dir = join('out', `${name}-sweep`);
-  return shard ? join(dir, `shard-${shard.index}-of-${shard.count}`) : dir;
+  return join('out', shard ? `${name}-sweep-shard-${shard.index}-of-${shard.count}` : `${name}-sweep`);
 }
 
 function rowValues(header: readonly string[], row: SweepRow): Record<string, number | null> {
-  const o: Record<string, number | null> = {};
+  const o = keyedRecord<number | null>();
   header.forEach((h, j) => (o[h] = row[j] ?? null));
   return o;
 }
@@ -168,18 +178,18 @@ export function yieldReport(plan: SweepPlan, rows: readonly SweepRow[]): YieldRe
 }
 
 /**
- * Simulates one point again and writes its run outputs (probes.csv, waveforms.png, summary.json); returns
- * the files and the check that decides the point's margin (null without checks).
+ * Simulates one point again; its run outputs (probes.csv, waveforms.png, summary.json) as entries
+ * under `folder`, and the check that decides the point's margin (null without checks).
  */
-async function writePointRun(
+async function pointRunEntries(
   plan: SweepPlan,
   point: number,
-  dir: string,
+  folder: string,
   what: string,
-  opts: { force?: boolean; width?: number; height?: number },
-): Promise<{ files: string[]; deciding: WorstCheck | null }> {
+  opts: { force?: boolean; limits?: Partial<RunLimits>; width?: number; height?: number },
+): Promise<{ entries: FolderEntry[]; deciding: WorstCheck | null }> {
   const net = pointNet(plan, point);
-  const result = simulate(net, { force: opts.force });
+  const result = simulateSized(net, { force: opts.force, limits: opts.limits });
   const title = `${net.title} — ${what}: point ${point}, ${describeAssignments(pointAssignments(plan, point))}`;
   const settled = netSettledLevels(net, result.discretization);
   const summary = buildSummary({
@@ -192,10 +202,10 @@ async function writePointRun(
   const measured = measureNet(net, result, [], settled);
   addMeasurementSections(summary, net, result, measured);
   const png = await renderResult(title, result, opts);
-  const files = await writeRunOutputs(dir, { title, result, summary }, png);
+  const entries = runFolderEntries({ title, result, summary }, [{ path: OUTPUT_FILES.png, data: png }]).map((e) => ({ ...e, path: join(folder, e.path) }));
   const k = decidingCheck(netChecks(net), measured.results);
   const r = k === null ? null : measured.results[k]!;
-  return { files, deciding: r && { probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass } };
+  return { entries, deciding: r && { probe: r.probe, metric: r.metric, limit: r.limit, measured: r.measured, measuredText: r.measuredText, pass: r.pass } };
 }
 
 /** The sweep's explore.html (src/explore loaded only when asked for), the best or worst point marked. */
@@ -213,37 +223,33 @@ function sweepJson(file: SweepFile): string {
 }
 
 /**
- * Writes a sweep's outputs from its rows (in point order). A shard writes its partial sweep.csv and
- * sweep.json; a whole sweep also the plot, the pick or yield, and the best or worst point's run.
+ * Writes a sweep's outputs from its rows (in point order), as one folder replacing the previous one
+ * (writeOutputFolder). A shard writes its partial sweep.csv and sweep.json; a whole sweep also the
+ * plot, the pick or yield, and the best or worst point's run in best/ or worst/.
  */
 export async function writeSweepOutputs(outDir: string, plan: SweepPlan, shard: Shard | null, rows: SweepRow[], opts: Omit<SweepRunOptions, 'out' | 'jobs'> = {}): Promise<SweepOutcome> {
-  await mkdir(outDir, { recursive: true });
-  const files: string[] = [];
   let result: SweepResultSection | null = null;
-  const batch = new AtomicBatch();
-  try {
-    await batch.stage(join(outDir, SWEEP_FILES.csv), formatSweepCsv(plan.header, rows));
-    if (!shard) {
-      const pick = pickReport(plan, rows);
-      const yld = yieldReport(plan, rows);
-      result = { pick, yield: yld };
-      if (pick?.best) files.push(...(await writePointRun(plan, pick.best.point, join(outDir, SWEEP_FILES.best), 'best', opts)).files);
-      if (yld?.worst) {
-        const w = await writePointRun(plan, yld.worst.point, join(outDir, SWEEP_FILES.worst), 'worst case', opts);
-        files.push(...w.files);
-        yld.worst.check = w.deciding;
-      }
-      const mark = pick?.best ? { point: pick.best.point, label: `best: point ${pick.best.point}` } : null;
-      await batch.stage(join(outDir, SWEEP_FILES.png), await renderSweepPlot(plan, rows, { mark, yield: yld, width: opts.width, height: opts.height }));
-      if (opts.explore) await batch.stage(join(outDir, SWEEP_FILES.explore), await explorePageOf(plan, rows, pick, yld, opts.force));
+  const entries: FolderEntry[] = [{ path: SWEEP_FILES.csv, data: async (sink) => {
+    for (const chunk of sweepCsvChunks(plan.header, rows)) await sink.write(chunk);
+  } }];
+  const pointEntries: FolderEntry[] = [];
+  if (!shard) {
+    const pick = pickReport(plan, rows);
+    const yld = yieldReport(plan, rows);
+    result = { pick, yield: yld };
+    if (pick?.best) pointEntries.push(...(await pointRunEntries(plan, pick.best.point, SWEEP_FILES.best, 'best', opts)).entries);
+    if (yld?.worst) {
+      const w = await pointRunEntries(plan, yld.worst.point, SWEEP_FILES.worst, 'worst case', opts);
+      pointEntries.push(...w.entries);
+      yld.worst.check = w.deciding;
     }
-    const file: SweepFile = { format: plan.format, tool: toolInfo(), shard, rows: rows.length, result, plan };
-    await batch.stage(join(outDir, SWEEP_FILES.json), sweepJson(file));
-    files.unshift(...(await batch.commit()));
-  } catch (e) {
-    await batch.abort();
-    throw e;
+    const mark = pick?.best ? { point: pick.best.point, label: `best: point ${pick.best.point}` } : null;
+    entries.push({ path: SWEEP_FILES.png, data: await renderSweepPlot(plan, rows, { mark, yield: yld, width: opts.width, height: opts.height }) });
+    if (opts.explore) entries.push({ path: SWEEP_FILES.explore, data: await explorePageOf(plan, rows, pick, yld, opts.force) });
   }
+  const file: SweepFile = { format: plan.format, tool: toolInfo(), shard, rows: rows.length, result, plan };
+  entries.push({ path: SWEEP_FILES.json, data: sweepJson(file) });
+  const files = await writeOutputFolder(outDir, [...entries, ...pointEntries]);
   return { plan, shard, rows, outDir, files, result };
 }
 
@@ -255,34 +261,66 @@ export interface SweepCall extends SweepRequest {
 /** Plans, runs (in parallel) and writes a sweep or one shard of it. */
 export async function runSweep(req: SweepCall, opts: SweepRunOptions): Promise<SweepOutcome> {
   const plan = await planSweep(req);
+  await checkOutputTarget(opts.out);
   const shard = req.shard === undefined || req.shard === null ? null : typeof req.shard === 'string' ? parseShard(req.shard) : req.shard;
+  checkSweepSize(shardPointCount(plan.points, shard), plan.header.length, opts.force);
   const indices = shardPoints(plan.points, shard);
-  const problems = pointProblems(plan, indices);
-  if (problems.length > 0) throw new ScenarioError(problems);
-  const rows = await runPoints(plan, indices, { jobs: opts.jobs, force: opts.force, onProgress: opts.onProgress });
-  return writeSweepOutputs(opts.out, plan, shard, rows, opts);
+  try {
+    const problems = pointProblems(plan, indices);
+    if (problems.length > 0) throw new ScenarioError(problems);
+    const rows = await runPoints(plan, indices, { jobs: opts.jobs, force: opts.force, limits: opts.limits, onProgress: opts.onProgress });
+    return await writeSweepOutputs(opts.out, plan, shard, rows, opts);
+  } catch (e) {
+    throw await withFilePositions(e, plan.scenario.file);
+  }
 }
 
-/** Reads a sweep folder's sweep.json and sweep.csv. */
+/**
+ * A point's problems (validated from plain data, so without positions) and engine errors with the
+ * line:column of their key paths in the scenario file, read again for the purpose.
+ */
+async function withFilePositions(e: unknown, file: string): Promise<unknown> {
+  if (!(e instanceof ScenarioError) && !(e instanceof NetError)) return e;
+  let root;
+  try {
+    root = (await readScenario(file)).root;
+  } catch {
+    return e; // the file changed meanwhile: the problems stay as they are
+  }
+  if (e instanceof ScenarioError) return new ScenarioError(locateProblems(e.problems, root), e.warnings);
+  return new NetError(locateNetProblems(e, root));
+}
+
+/** Largest sweep.json or sweep.csv read back: 256 MiB (JavaScript strings end near 512 MiB). */
+export const MAX_SWEEP_FILE_BYTES = 256 * 1024 ** 2;
+
+async function readSweepText(dir: string, name: string): Promise<string> {
+  const path = join(dir, name);
+  const read = await readCapped(path, MAX_SWEEP_FILE_BYTES);
+  if (!read.ok) {
+    if (read.why === 'no such file') throw new SweepInputError(`${dir}: not a sweep folder (no ${name})`);
+    throw new SweepInputError(`${path}: cannot read it (${read.why})`);
+  }
+  const text = read.bytes.toString('utf8');
+  return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+}
+
+/** Reads a sweep folder's sweep.json and sweep.csv; every field the merge uses is checked first. */
 export async function readSweepFolder(dir: string): Promise<{ file: SweepFile; header: string[]; rows: SweepRow[] }> {
-  let json: string;
-  let csv: string;
+  const json = await readSweepText(dir, SWEEP_FILES.json);
+  const csv = await readSweepText(dir, SWEEP_FILES.csv);
+  const where = join(dir, SWEEP_FILES.json);
+  let value: unknown;
   try {
-    json = await readFile(join(dir, SWEEP_FILES.json), 'utf8');
-    csv = await readFile(join(dir, SWEEP_FILES.csv), 'utf8');
+    value = JSON.parse(json);
   } catch (e) {
-    throw new SweepInputError(`${dir}: not a sweep folder (${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no sweep.json or sweep.csv' : (e as Error).message})`);
+    throw new SweepInputError(`${where}: not valid JSON (${(e as Error).message})`);
   }
-  let file: SweepFile;
-  try {
-    file = JSON.parse(json) as SweepFile;
-  } catch (e) {
-    throw new SweepInputError(`${join(dir, SWEEP_FILES.json)}: not valid JSON (${(e as Error).message})`);
-  }
-  if (file.format !== 1 || !file.plan || !Array.isArray(file.plan.header)) throw new SweepInputError(`${join(dir, SWEEP_FILES.json)}: not a ladderwave sweep file of format 1`);
+  const v = validateSweepFile(value);
+  if (!v.ok) throw new SweepInputError(`${where}: not a ladderwave sweep file of format 1 (${v.message})`);
   try {
     const t = parseSweepCsv(csv, join(dir, SWEEP_FILES.csv));
-    return { file, ...t };
+    return { file: v.file, ...t };
   } catch (e) {
     if (e instanceof SweepCsvError) throw new SweepInputError(e.message);
     throw e;
@@ -325,6 +363,7 @@ export async function mergeSweeps(dirs: readonly string[], opts: Omit<SweepRunOp
     throw new SweepInputError(`${plan.points - byPoint.size} of ${plan.points} points are missing${missing.length ? `: shard(s) ${missing.join(', ')} not given` : ''}`);
   }
   const rows = [...byPoint.keys()].sort((a, b) => a - b).map((i) => byPoint.get(i)!.row);
+  await checkOutputTarget(opts.out);
   return writeSweepOutputs(opts.out, plan, null, rows, opts);
 }
 

@@ -12,6 +12,8 @@
 // the scenario validator checks its dimension and range exactly as for a value typed in the file.
 import { DIMENSIONS, dimensionsOfUnit, parseQuantity, type Dimension } from '../units.js';
 import { getAtPath, parsePath, PathError } from './paths.js';
+import { SizeRefused } from '../size-limits.js';
+import { MAX_AXIS_VALUES } from './size.js';
 
 export class SweepSpecError extends Error {
   constructor(message: string) {
@@ -34,7 +36,10 @@ export function parseAnyQuantity(text: string | number): Quantity | undefined {
   const m = NUMBER_UNIT.exec(text);
   if (!m) return undefined;
   const unit = m[2]!;
-  if (unit === '') return { value: Number(m[1]), unit: '' };
+  if (unit === '') {
+    const value = Number(m[1]);
+    return Number.isFinite(value) ? { value, unit: '' } : undefined;
+  }
   for (const dim of dimensionsOfUnit(unit) as Dimension[]) {
     const q = parseQuantity(text, dim);
     if (q.ok) return { value: q.value, unit: DIMENSIONS[dim].base };
@@ -74,8 +79,18 @@ function splitAssignment(text: string, option: string, example: string): { path:
 
 function quantityOf(text: string, what: string): Quantity {
   const q = parseAnyQuantity(text);
-  if (!q) throw new SweepSpecError(`${what}: "${text}" is not a number with a unit like "39ohm", "1.2ns" or "0.66c"`);
-  return q;
+  if (q) return q;
+  // A number too large to hold (1e400) or a value outside what any part can have (1e300ohm).
+  const m = NUMBER_UNIT.exec(text);
+  if (m) {
+    const unit = m[2]!;
+    if (unit === '') throw new SweepSpecError(`${what}: "${text}" is not a finite number`);
+    for (const dim of dimensionsOfUnit(unit) as Dimension[]) {
+      const r = parseQuantity(text, dim);
+      if (!r.ok) throw new SweepSpecError(`${what}: "${text}" — expected ${r.expected}`);
+    }
+  }
+  throw new SweepSpecError(`${what}: "${text}" is not a number with a unit like "39ohm", "1.2ns" or "0.66c"`);
 }
 
 function sameUnit(a: Quantity, b: Quantity, what: string, ta: string, tb: string): string {
@@ -97,6 +112,9 @@ export function parseVary(text: string): VaryAxis {
     const unit = sameUnit(a, b, what, ta.trim(), tb.trim());
     const n = Number(tn);
     if (!(n >= 1)) throw new SweepSpecError(`${what}: the count after ":" must be at least 1`);
+    if (n > MAX_AXIS_VALUES) {
+      throw new SizeRefused(`sweep refused even with --force: ${what} asks for ${tn} values, more than the ${MAX_AXIS_VALUES.toLocaleString('en-US')} one --vary may list`, true);
+    }
     const log = scale?.toLowerCase() === 'log';
     if (log && !(a.value > 0 && b.value > 0)) throw new SweepSpecError(`${what}: a log range needs both ends above 0`);
     const values: number[] = [];
@@ -149,7 +167,7 @@ export function parseSpread(text: string): SpreadSpec {
   const t = body.trim();
   if (t.endsWith('%')) {
     const p = Number(t.slice(0, -1));
-    if (!(p >= 0) || t.slice(0, -1).trim() === '') throw new SweepSpecError(`${what}: "${t}" is not a percentage ≥ 0`);
+    if (!(p >= 0 && p <= 1000) || t.slice(0, -1).trim() === '') throw new SweepSpecError(`${what}: "${t}" is not a percentage from 0% to 1000%`);
     return { path, text, distribution, relative: true, amount: p / 100, unit: '' };
   }
   const q = quantityOf(t, what);
@@ -183,6 +201,12 @@ export function parseShard(text: string): { index: number; count: number } {
   const count = Number(m[2]);
   if (!(count >= 1) || !(index >= 1 && index <= count)) throw new SweepSpecError(`--shard "${text}": K must be from 1 to N (shards count from 1, like CI matrices)`);
   return { index, count };
+}
+
+/** How many of `total` points shard K/N computes (without listing them). */
+export function shardPointCount(total: number, shard: { index: number; count: number } | null): number {
+  if (!shard) return total;
+  return total >= shard.index ? Math.floor((total - shard.index) / shard.count) + 1 : 0;
 }
 
 /** Point indices (0-based) of shard K/N out of `total`: every N-th point starting at the K-th. */

@@ -1,13 +1,30 @@
 // sweep.csv: header, then one row per point in point order. Numbers are written in full precision
 // (JavaScript's shortest round-trip form, as in probes.csv), an unmeasurable value as an empty cell,
 // so reading the file back gives the identical numbers (merge relies on this).
-import { csvField } from '../output/csv.js';
+import { CHUNK_CHARS, csvField } from '../output/csv.js';
 import type { SweepRow } from './point.js';
 
+/** sweep.csv in chunks of about CHUNK_CHARS characters (a sweep may have 100 000 rows of hundreds of columns). */
+export function* sweepCsvChunks(header: readonly string[], rows: readonly SweepRow[]): Generator<string> {
+  yield header.map(csvField).join(',') + '\n';
+  const parts: string[] = [];
+  let size = 0;
+  for (const r of rows) {
+    const line = r.map((v) => (v === null ? '' : String(v))).join(',') + '\n';
+    parts.push(line);
+    size += line.length;
+    if (size >= CHUNK_CHARS) {
+      yield parts.join('');
+      parts.length = 0;
+      size = 0;
+    }
+  }
+  if (parts.length) yield parts.join('');
+}
+
+/** The whole of sweep.csv as one string (short sweeps, tests). */
 export function formatSweepCsv(header: readonly string[], rows: readonly SweepRow[]): string {
-  let s = header.map(csvField).join(',') + '\n';
-  for (const r of rows) s += r.map((v) => (v === null ? '' : String(v))).join(',') + '\n';
-  return s;
+  return [...sweepCsvChunks(header, rows)].join('');
 }
 
 export class SweepCsvError extends Error {}
@@ -52,7 +69,7 @@ export function parseSweepCsv(text: string, file = 'sweep.csv'): { header: strin
     return cells.map((c, j) => {
       if (c === '') return null;
       const x = Number(c);
-      if (Number.isNaN(x)) throw new SweepCsvError(`${file}:${k + 2}: "${c}" in column ${header[j]} is not a number`);
+      if (!Number.isFinite(x)) throw new SweepCsvError(`${file}:${k + 2}: "${c}" in column ${header[j]} is not a finite number`);
       return x;
     });
   });

@@ -56,16 +56,21 @@ export function isViewName(s: string): s is ViewName {
 }
 
 /**
- * Parses a comma-separated list of view names ("waveforms,map", "all", "eye, bounce"). Names are
- * case-insensitive; repeats are dropped; the result is in the canonical order of VIEW_NAMES. Throws
- * ViewListError naming every unknown entry.
+ * Parses a comma-separated list of view names ("waveforms,map", "all", "eye, bounce"), or "none" for
+ * no picture at all (probes.csv and summary.json only, for scripts). Names are case-insensitive;
+ * repeats are dropped; the result is in the canonical order of VIEW_NAMES. Throws ViewListError
+ * naming every unknown entry.
  */
 export function parseViewList(text: string): ViewName[] {
   const entries = text
     .split(',')
     .map((s) => s.trim().toLowerCase())
     .filter((s) => s !== '');
-  if (entries.length === 0) throw new ViewListError(`--views needs at least one of: ${VIEW_NAMES.join(', ')}, all`);
+  if (entries.length === 0) throw new ViewListError(`--views needs at least one of: ${VIEW_NAMES.join(', ')}, all, none`);
+  if (entries.includes('none')) {
+    if (entries.some((e) => e !== 'none')) throw new ViewListError(`--views none means no views: give it alone, not with ${entries.filter((e) => e !== 'none').join(', ')}`);
+    return [];
+  }
   const wanted = new Set<ViewName>();
   const bad: string[] = [];
   for (const e of entries) {
@@ -76,7 +81,7 @@ export function parseViewList(text: string): ViewName[] {
   if (bad.length) {
     const tdr = bad.includes('tdr') ? '; the TDR profile is its own command: ladderwave tdr SCENARIO' : '';
     throw new ViewListError(
-      `unknown view${bad.length > 1 ? 's' : ''} ${bad.map((b) => `'${b}'`).join(', ')} in --views (known: ${VIEW_NAMES.join(', ')}, all)${tdr}`,
+      `unknown view${bad.length > 1 ? 's' : ''} ${bad.map((b) => `'${b}'`).join(', ')} in --views (known: ${VIEW_NAMES.join(', ')}, all, none)${tdr}`,
     );
   }
   return VIEW_NAMES.filter((v) => wanted.has(v));

@@ -265,20 +265,27 @@ export function segmentReadings(p: TdrProfile): { name: string; z0: number; read
   });
 }
 
-/** The profile as CSV: `time_s,distance_m,impedance_ohm`, full precision, `inf` for an open reading. */
-export function tdrCsv(p: TdrProfile): string {
-  const parts: string[] = ['time_s,distance_m,impedance_ohm\n'];
+/**
+ * The profile as CSV, in chunks of about 64 kB: `time_s,distance_m,impedance_ohm`, full precision,
+ * `inf` for an open reading. A slow step on a long route has millions of rows: write it chunk by chunk.
+ */
+export function* tdrCsvChunks(p: TdrProfile): Generator<string> {
+  yield 'time_s,distance_m,impedance_ohm\n';
   const num = (v: number) => (v === Infinity ? 'inf' : v === -Infinity ? '-inf' : String(v));
   let chunk = '';
   for (let i = 0; i < p.time.length; i++) {
     chunk += `${num(p.time[i])},${num(p.distance[i])},${num(p.impedance[i])}\n`;
     if (chunk.length > 1 << 16) {
-      parts.push(chunk);
+      yield chunk;
       chunk = '';
     }
   }
-  parts.push(chunk);
-  return parts.join('');
+  if (chunk) yield chunk;
+}
+
+/** The whole CSV as one string (short profiles, tests); use tdrCsvChunks for files. */
+export function tdrCsv(p: TdrProfile): string {
+  return [...tdrCsvChunks(p)].join('');
 }
 
 /** The impedance range to show: the readings along the route (and a little past it), capped at 4·Z_ref. */

@@ -4,6 +4,7 @@ import { outputFolders, scenarioName } from '../../src/cli/commands/run.js';
 import { describeFailure, EXIT, UsageError, worstExitCode } from '../../src/exit-codes.js';
 import { OutputError } from '../../src/output/run.js';
 import { ScenarioError } from '../../src/scenario/problems.js';
+import { SizeRefused } from '../../src/size-limits.js';
 import { join } from 'node:path';
 
 describe('exit codes and error lines', () => {
@@ -36,7 +37,7 @@ describe('exit codes and error lines', () => {
     expect(describeFailure(new RunRefused([records]), 'h.json').lines.join('\n')).toContain('--force');
   });
 
-  it('treats output and usage errors as exit 2 and anything else as a bug (exit 1, with the stack)', () => {
+  it('treats output and usage errors as exit 2 and anything else as a bug: exit 4, one line, no stack', () => {
     expect(describeFailure(new OutputError('cannot create the output folder x'), 'a.json')).toEqual({
       code: 2,
       lines: ['a.json: cannot create the output folder x'],
@@ -44,15 +45,27 @@ describe('exit codes and error lines', () => {
     expect(describeFailure(new UsageError('two outputs')).code).toBe(2);
     const bug = describeFailure(new TypeError('x is undefined'), 'a.json');
     expect(bug.code).toBe(EXIT.bug);
-    expect(bug.lines[0]).toMatch(/internal error/);
-    expect(bug.lines.join('\n')).toMatch(/TypeError: x is undefined\n\s+at /);
+    expect(bug.code).toBe(4);
+    expect(bug.lines).toHaveLength(1);
+    expect(bug.lines[0]).toMatch(/^a\.json: internal error \(a bug in ladderwave.*\): x is undefined$/);
+    expect(bug.lines.join('\n')).not.toMatch(/TypeError|\n\s+at /);
   });
 
-  it('exits with the most serious code among several scenarios', () => {
+  it('reports a run the machine cannot hold, even forced, with exit 3 and without suggesting --force', () => {
+    const hard = describeFailure(new SizeRefused('run refused even with --force: 1e150 steps', true), 'h.json');
+    expect(hard).toEqual({ code: 3, lines: ['h.json: run refused even with --force: 1e150 steps'] });
+    const soft = describeFailure(new SizeRefused('a sweep of 2e6 points', false), 'h.json');
+    expect(soft.code).toBe(3);
+    expect(soft.lines.join('\n')).toContain('--force');
+  });
+
+  it('exits with the most serious code among several: bug 4, refused 3, bad input 2, a failed check 1', () => {
     expect(worstExitCode([])).toBe(0);
     expect(worstExitCode([0, 2, 0])).toBe(2);
     expect(worstExitCode([2, 3, 2])).toBe(3);
-    expect(worstExitCode([3, 1, 2])).toBe(1);
+    expect(worstExitCode([3, 1, 2])).toBe(3);
+    expect(worstExitCode([1, 0])).toBe(1);
+    expect(worstExitCode([3, 4, 1])).toBe(4);
   });
 });
 

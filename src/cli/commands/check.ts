@@ -1,10 +1,11 @@
 // `ladderwave check FILES_OR_GLOBS… [--junit F] [--json F] [--markdown F] [--golden DIR] [--update-golden]`
 // Thin: the work is in src/checks (runChecks and the report writers).
 import type { Command } from 'commander';
-import { mkdir } from 'node:fs/promises';
-import { dirname, join } from 'node:path';
 import { expandScenarioArgs, formatCheckTable, goldenNameClashes, runChecks, toJUnitXml, toJsonReport, toMarkdown } from '../../checks/index.js';
 import { writeFileAtomic } from '../../output/atomic.js';
+import { OutputError } from '../../output/errors.js';
+import { checkFileTarget, prepareFileTarget } from '../../output/folder.js';
+import { join } from 'node:path';
 import { parseQuantity } from '../../units.js';
 import type { CliContext } from '../context.js';
 import { EXIT, type ExitCode } from '../../exit-codes.js';
@@ -33,12 +34,20 @@ export async function checkCommand(args: string[], opts: CheckCommandOptions, ct
   const shift = parseQuantity(opts.goldenShift, 'time', { min: 0 }, '20ps');
   if (!shift.ok) usage.push(`--golden-shift ${opts.goldenShift}: expected ${shift.expected}`);
   if (opts.golden) usage.push(...goldenNameClashes(files));
+  // Report files and the golden folder that cannot be written fail now, before any scenario runs.
+  for (const f of [opts.junit, opts.json, opts.markdown]) {
+    if (f === undefined) continue;
+    await checkFileTarget(f).catch((e: unknown) => usage.push(e instanceof OutputError ? e.message : String(e)));
+  }
+  if (opts.golden && opts.updateGolden) await checkFileTarget(join(opts.golden, 'x.csv')).catch((e: unknown) => usage.push(e instanceof OutputError ? e.message : String(e)));
+  if (opts.golden && !opts.updateGolden) await checkFileTarget(join(opts.goldenPlots, 'x.png')).catch((e: unknown) => usage.push(e instanceof OutputError ? e.message : String(e)));
   if (usage.length > 0) {
     io.err(usage.map((l) => `ladderwave check: ${l}\n`).join(''));
     return EXIT.badInput;
   }
   const report = await runChecks(files, {
     force: opts.force,
+    limits: ctx.limits,
     golden: opts.golden && tol.ok && shift.ok ? { dir: opts.golden, update: !!opts.updateGolden, tolerance: tol.value, shift: shift.value, plots: opts.goldenPlots } : undefined,
   });
   if (!opts.quiet) io.out(formatCheckTable(report));
@@ -53,10 +62,10 @@ export async function checkCommand(args: string[], opts: CheckCommandOptions, ct
   for (const [file, make] of outputs) {
     if (!file) continue;
     try {
-      await mkdir(dirname(file), { recursive: true });
+      await prepareFileTarget(file);
       await writeFileAtomic(file, make());
     } catch (e) {
-      io.err(`ladderwave check: cannot write ${file}: ${(e as Error).message}\n`);
+      io.err(`ladderwave check: ${e instanceof OutputError ? e.message : `cannot write ${file}: ${(e as Error).message}`}\n`);
       code = EXIT.badInput;
     }
   }

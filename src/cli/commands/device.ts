@@ -5,13 +5,15 @@
 // reproduction into their fixtures; writes iv.png and waveforms.png.
 import type { Command } from 'commander';
 import { join } from 'node:path';
-import { mkdir } from 'node:fs/promises';
 import { deviceReport, formatDeviceReport, ivPlot, waveformPlot } from '../../device-report/index.js';
 import { examples } from '../help.js';
 import { ibisBuffer, loadIbisFile, IbisError, type Corner, type IbisSelection } from '../../ibis/index.js';
-import { AtomicBatch } from '../../output/atomic.js';
+import { writeOutputFolder, type FolderEntry } from '../../output/folder.js';
 import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, type ExitCode } from '../../exit-codes.js';
+
+/** Files the device command writes in its output folder. */
+export const DEVICE_FILES = { iv: 'iv.png', waveforms: 'waveforms.png' } as const;
 
 export interface DeviceCommandOptions {
   model?: string;
@@ -53,16 +55,10 @@ export async function deviceCommand(file: string, opts: DeviceCommandOptions, ct
     io.out(formatDeviceReport(report, !opts.quiet));
     if (opts.plots !== false) {
       const dir = opts.out ?? join('out', `device-${buffer.data.name}-${corner}`);
-      await mkdir(dir, { recursive: true });
-      const done = ctx.guardWrites?.();
-      try {
-        const batch = new AtomicBatch();
-        await batch.stage(join(dir, 'iv.png'), await ivPlot(report));
-        if (report.waveforms.length) await batch.stage(join(dir, 'waveforms.png'), await waveformPlot(report));
-        for (const f of await batch.commit()) io.out(`wrote ${f}\n`);
-      } finally {
-        done?.();
-      }
+      // One folder replaced as a whole, like every command's (src/output/folder.ts).
+      const entries: FolderEntry[] = [{ path: DEVICE_FILES.iv, data: await ivPlot(report) }];
+      if (report.waveforms.length) entries.push({ path: DEVICE_FILES.waveforms, data: await waveformPlot(report) });
+      for (const f of await writeOutputFolder(dir, entries)) io.out(`wrote ${f}\n`);
     }
     return EXIT.ok;
   } catch (e) {

@@ -2,7 +2,7 @@
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { resolveThresholds } from '../../measure/index.js';
-import { EyeRequestError, eyeScenarioFile } from '../../output/eye.js';
+import { eyeScenarioFile } from '../../output/eye.js';
 import { formatProblem } from '../../scenario/problems.js';
 import { examples } from '../help.js';
 import { formatSI, parseQuantity } from '../../units.js';
@@ -73,12 +73,10 @@ export function eyeSettings(opts: EyeCommandOptions): EyeSettings {
 
 export async function eyeCommand(file: string, opts: EyeCommandOptions, ctx: CliContext): Promise<ExitCode> {
   const { io } = ctx;
-  let release: (() => void) | undefined;
   try {
     const settings = eyeSettings(opts);
     const outDir = eyeOutputFolder(file, opts.out);
-    if (ctx.guardWrites) release = ctx.guardWrites();
-    const r = await eyeScenarioFile(file, outDir, { probe: opts.probe, force: opts.force, ...settings });
+    const r = await eyeScenarioFile(file, outDir, { probe: opts.probe, force: opts.force, limits: ctx.limits, ...settings });
     if (!opts.quiet) {
       for (const w of r.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
       for (const w of r.eye.warnings) io.err(`warning: ${file}: eye: ${w}\n`);
@@ -99,15 +97,9 @@ export async function eyeCommand(file: string, opts: EyeCommandOptions, ctx: Cli
     }
     return EXIT.ok;
   } catch (e) {
-    if (e instanceof EyeRequestError) {
-      io.err(`${file}: ${e.message}\n`);
-      return EXIT.badInput;
-    }
     const f = describeFailure(e, file);
     io.err(f.lines.map((l) => `${e instanceof UsageError ? 'ladderwave eye: ' : ''}${l}\n`).join(''));
     return f.code;
-  } finally {
-    release?.();
   }
 }
 
@@ -119,7 +111,7 @@ export function registerEyeCommand(program: Command, ctx: CliContext): void {
       'Simulate the scenario long enough for its whole bit pattern (PRBS-7 at least once; 64 unit intervals of a clock) ' +
         'plus the route’s settle time, fold the probe’s waveform into windows of two unit intervals, and write eye.png ' +
         'and summary.json (section "eye": eye height over the sampling window, eye width, sampling instant, threshold).\n' +
-        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
+        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 4 internal error (a bug).',
     )
     .addHelpText('after', examples(['ladderwave eye scenarios/solar-tracker-prbs-link.json --thresholds lvcmos25 --sample-window 30%']))
     .argument('<scenario>', 'scenario file (JSON or YAML) whose driver sends bits or a clock')

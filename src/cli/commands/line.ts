@@ -125,7 +125,7 @@ export function registerLineCommand(program: Command, ctx: CliContext): void {
         'Geometry options take the keys of the scenario form as key=value pairs (examples below).\n' +
         'A coupled pair (--coupled-microstrip, --coupled-stripline, --coupled-modes) prints its L and C matrices, ' +
         'modal velocities and impedances, Z_odd, Z_even, Z_diff, Z_comm and the coupling coefficients K_b, K_f.\n' +
-        'Exit codes: 0 ok, 2 bad input or usage, 1 internal error.',
+        'Exit codes: 0 ok, 2 bad input or usage, 4 internal error (a bug).',
     )
     .addHelpText(
       'after',

@@ -17,9 +17,9 @@ export async function mergeCommand(dirs: string[], opts: MergeCommandOptions, ct
   const { io } = ctx;
   try {
     const out = opts.out ?? defaultSweepFolder((await readSweepFolder(dirs[0]!)).file.plan.scenario.file, null);
-    const outcome = await mergeSweeps(dirs, { out, force: opts.force });
+    const outcome = await mergeSweeps(dirs, { out, force: opts.force, limits: ctx.limits });
     if (!opts.quiet) io.out(formatSweepReport(outcome));
-    return outcome.result?.pick && !outcome.result.pick.best ? 1 : EXIT.ok;
+    return outcome.result?.pick && !outcome.result.pick.best ? EXIT.checkFailed : EXIT.ok;
   } catch (e) {
     const usage = sweepUsageError(e);
     const f = usage ? { code: EXIT.badInput, lines: usage } : describeFailure(e);

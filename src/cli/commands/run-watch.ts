@@ -43,7 +43,6 @@ function printEvent(e: WatchEvent, file: string, ctx: CliContext, quiet: boolean
 export async function watchRun(file: string, outDir: string, opts: RunCommandOptions, chosen: { views: ViewName[]; frames: number }, ctx: CliContext): Promise<ExitCode> {
   const port = parsePort(opts.port);
   const { startWatch } = await import('../../explore/watch.js');
-  let release: (() => void) | undefined;
   let session: Awaited<ReturnType<typeof startWatch>>;
   try {
     session = await startWatch({
@@ -56,18 +55,10 @@ export async function watchRun(file: string, outDir: string, opts: RunCommandOpt
         frames: chosen.frames,
         report: opts.report,
         path: opts.path,
-        onPhase: (phase) => {
-          release?.();
-          release = phase === 'write' && ctx.guardWrites ? ctx.guardWrites() : undefined;
-        },
+        limits: ctx.limits,
       },
-      onEvent: (e) => {
-        if (e.kind === 'ran' || e.kind === 'failed') {
-          release?.();
-          release = undefined;
-        }
-        printEvent(e, file, ctx, opts.quiet === true);
-      },
+      // Temporaries of an interrupted write are removed by the output registry's own signal handlers.
+      onEvent: (e) => printEvent(e, file, ctx, opts.quiet === true),
     });
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;

@@ -7,7 +7,7 @@ import type { CliContext } from '../context.js';
 import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from '../../exit-codes.js';
 import { formatRunReport } from '../format.js';
 import { CHECK_FAILED } from '../../checks/index.js';
-import { crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
+import { CROSSCHECK_FILE, crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
 import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';
 import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_FILES, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
 
@@ -96,22 +96,20 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
   }
   const codes: ExitCode[] = [];
   for (let i = 0; i < files.length; i++) {
-    let release: (() => void) | undefined;
     try {
       const cc = opts.crossCheck ? crossCheckRun({ force: opts.force }) : undefined;
       const report = await runScenarioFile(files[i], dirs[i], {
         force: opts.force,
+        limits: ctx.limits,
         extendSummary: cc?.extendSummary,
+        extraFiles: cc?.files,
         views: chosen.views,
         frames: chosen.frames,
         report: opts.report,
         explore: opts.explore,
         path: opts.path,
-        onPhase: (phase) => {
-          if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
-        },
       });
-      const ccFile = cc ? await cc.write(dirs[i]) : undefined;
+      const ccFile = cc ? join(dirs[i], CROSSCHECK_FILE) : undefined;
       if (!opts.quiet) {
         for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
         for (const s of report.skippedViews) io.err(`warning: ${files[i]}: no ${s.view} view: ${s.reason}\n`);
@@ -134,8 +132,6 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
       const f = describeFailure(e, files[i]);
       io.err(f.lines.map((l) => l + '\n').join(''));
       codes.push(f.code);
-    } finally {
-      release?.();
     }
   }
   return worstExitCode(codes);
@@ -151,14 +147,14 @@ export function registerRunCommand(program: Command, ctx: CliContext): void {
         VIEW_NAMES.map((v) => `${v} (${VIEW_DESCRIPTIONS[v]})`).join('; ') +
         '.\n' +
         'The verdicts of the scenario\'s "checks" are printed and written to summary.json.\n' +
-        'Exit codes: 0 ok, 1 a check failed (--ignore-checks: 0) or an internal error, 2 bad input or usage, 3 refused (over a size limit; --force overrides).',
+        'Exit codes: 0 ok, 1 a check failed (--ignore-checks: 0), 2 bad input or usage, 3 refused (over a size limit; --force overrides), 4 internal error (a bug).',
     )
     .argument('<scenario...>', 'scenario files (JSON or YAML)')
     .option('-o, --out <dir>', 'output folder (default out/<scenario name>); with several scenarios, one subfolder per scenario under it')
     .option('-q, --quiet', 'print nothing except errors')
     .option('-f, --force', 'run even if the run would exceed a size limit')
     .option('--cross-check', 'also solve the net with the independent spectral solver: print the largest difference per probe (% of swing), write crosscheck.png and a crossCheck section in summary.json')
-    .option('--views <list>', `views to draw, comma-separated from ${VIEW_NAMES.join(', ')} or all (default ${DEFAULT_RUN_VIEWS.join(',')})`)
+    .option('--views <list>', `views to draw, comma-separated from ${VIEW_NAMES.join(', ')}, or all, or none for probes.csv and summary.json only (default ${DEFAULT_RUN_VIEWS.join(',')})`)
     .option('--path <receiver>', 'on a branched net, the receiver whose path from the driver pin the bounce view follows (default: the main receiver)')
     .option('--frames <n>', 'also write N PNG frames of the voltage along the route to frames/')
     .option('--report', 'also write report.html: the scenario, route, views, measurements and checks in one page')

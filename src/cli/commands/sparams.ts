@@ -87,14 +87,9 @@ export async function sparamsCommand(file: string, opts: SparamsCommandOptions, 
     io.err(f.lines.map((l) => `ladderwave sparams: ${l}\n`).join(''));
     return f.code;
   }
-  let release: (() => void) | undefined;
   try {
-    const report = await runSparamsFile(file, opts.out ?? join('out', scenarioName(file)), {
-      ...options,
-      onPhase: (phase) => {
-        if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
-      },
-    });
+    // Its own folder beside the run's: an output folder is replaced as a whole.
+    const report = await runSparamsFile(file, opts.out ?? join('out', `${scenarioName(file)}-sparams`), options);
     if (!opts.quiet) {
       for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
       io.out(formatSparamsReport(report));
@@ -104,8 +99,6 @@ export async function sparamsCommand(file: string, opts: SparamsCommandOptions, 
     const f = describeFailure(e, file);
     io.err(f.lines.map((l) => l + '\n').join(''));
     return f.code;
-  } finally {
-    release?.();
   }
 }
 
@@ -119,10 +112,10 @@ export function registerSparamsCommand(program: Command, ctx: CliContext): void 
         'part of the two-port. Writes sparams.s2p (Touchstone 1.1 or 2.0), sparams.png (|S21|, |S11| in dB, phase and group ' +
         'delay, quarter-wave points marked) and sparams.json into the output folder. Default grid: linear up to 3.5/t_r of the ' +
         "scenario's fastest edge, at least 20 points per reflection ripple.\n" +
-        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (too many points), 1 internal error.',
+        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (too many points), 4 internal error (a bug).',
     )
     .argument('<scenario>', 'scenario file (JSON or YAML)')
-    .option('-o, --out <dir>', 'output folder (default out/<scenario name>)')
+    .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sparams)')
     .option('-z, --z0 <resistance>', 'reference resistance of both ports (default 50ohm)')
     .option('--format <version>', 'Touchstone version: 1.1 or 2.0 (default 1.1)')
     .option('--numbers <format>', 'number format in the file: RI, MA or DB (default RI)')

@@ -53,6 +53,7 @@ export async function sweepCommand(file: string, opts: SweepCommandOptions, ctx:
         jobs,
         force: opts.force,
         explore: opts.explore,
+        limits: ctx.limits,
         onProgress: (done, total) => {
           progress ??= createProgress({ total, label: 'sweep', quiet: opts.quiet, stream: { write: (s) => io.err(s), isTTY: stderr.isTTY, columns: stderr.columns } });
           progress.update(done);
@@ -62,7 +63,7 @@ export async function sweepCommand(file: string, opts: SweepCommandOptions, ctx:
     progress?.finish();
     if (!opts.quiet) io.out(formatSweepReport(outcome, { jobs: Math.min(jobs, outcome.rows.length), seconds: (performance.now() - t0) / 1000 }));
     // A pick that no point satisfies is a verdict, like a failed check.
-    return outcome.result?.pick && !outcome.result.pick.best ? 1 : EXIT.ok;
+    return outcome.result?.pick && !outcome.result.pick.best ? EXIT.checkFailed : EXIT.ok;
   } catch (e) {
     const usage = sweepUsageError(e);
     const f = usage ? { code: EXIT.badInput, lines: usage } : describeFailure(e, file);
@@ -103,7 +104,7 @@ export function registerSweepCommand(program: Command, ctx: CliContext): void {
     .option('--metric <name>', 'metric plotted in sweep.png (a metric like settling, or a column like overshoot_V)')
     .option('-j, --jobs <n>', 'threads computing points (default: all cores, os.availableParallelism())')
     .option('--shard <k/n>', 'run only every N-th point starting at the K-th (1-based); combine with ladderwave merge')
-    .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sweep; a shard: …/shard-K-of-N)')
+    .option('-o, --out <dir>', 'output folder (default out/<scenario name>-sweep; a shard: out/<scenario name>-sweep-shard-K-of-N)')
     .option('-q, --quiet', 'print nothing except errors (no progress)')
     .option('-f, --force', 'run even if a point would exceed a size limit')
     .option('--explore', 'also write explore.html: the points in a table, chosen points\' waveforms overlaid (zoom, cursors); opens offline in any browser')

@@ -60,17 +60,8 @@ export async function tdrCommand(file: string, opts: TdrCommandOptions, ctx: Cli
     io.err(f.lines.map((l) => `ladderwave tdr: ${l}\n`).join(''));
     return f.code;
   }
-  let release: (() => void) | undefined;
   try {
-    const report = await runTdrFile(file, tdrOutputFolder(file, opts.out), {
-      rise,
-      z0,
-      path: opts.path,
-      force: opts.force,
-      onPhase: (phase) => {
-        if (phase === 'write' && ctx.guardWrites) release = ctx.guardWrites();
-      },
-    });
+    const report = await runTdrFile(file, tdrOutputFolder(file, opts.out), { rise, z0, path: opts.path, force: opts.force, limits: ctx.limits });
     if (!opts.quiet) {
       for (const w of report.scenario.warnings) io.err(`warning: ${formatProblem(w)}\n`);
       io.out(formatTdrReport(report));
@@ -80,8 +71,6 @@ export async function tdrCommand(file: string, opts: TdrCommandOptions, ctx: Cli
     const f = describeFailure(e, file);
     io.err(f.lines.map((l) => l + '\n').join(''));
     return f.code;
-  } finally {
-    release?.();
   }
 }
 
@@ -93,7 +82,7 @@ export function registerTdrCommand(program: Command, ctx: CliContext): void {
       'Drive the route from a matched step source (its resistance is the reference impedance), keep the receiver, and read ' +
         'the wave reflected back to the driver pin as impedance against distance and round-trip time. Writes tdr.png and ' +
         'tdr.csv (time_s, distance_m, impedance_ohm) into the output folder.\n' +
-        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 1 internal error.',
+        'Exit codes: 0 ok, 2 bad input or usage, 3 refused (over a size limit; --force overrides), 4 internal error (a bug).',
     )
     .argument('<scenario>', 'scenario file (JSON or YAML)')
     .option('-r, --rise <time>', `10–90 % rise time of the step (default ${DEFAULT_TDR_RISE * 1e12} ps, or the route's one-way delay / 400 when that is longer)`)

@@ -89,6 +89,37 @@ describe('golden waveforms', () => {
     expect(changed.scenarios[0]!.rows.find((r) => r.kind === 'golden' && r.probe === 'tx')!.message).not.toContain('picture');
   });
 
+  it('a golden file with a byte-order mark is read like one without (as scenario files are)', async () => {
+    const dir = tmp.make('lw-check-');
+    const file = writeJson(dir, 'small.json', SMALL);
+    const golden = join(dir, 'golden');
+    const g = { dir: golden, tolerance: 0.01, shift: 20e-12 };
+    await runChecks([file], { golden: { ...g, update: true } });
+    writeFileSync(join(golden, 'small.csv'), '\ufeff' + readFileSync(join(golden, 'small.csv'), 'utf8'));
+    const r = await runChecks([file], { golden: { ...g, update: false } });
+    expect(r.exitCode).toBe(0);
+    expect(r.scenarios[0]!.rows.filter((x) => x.kind === 'golden').map((x) => x.measured)).toEqual([0, 0]);
+  });
+
+  it.each([
+    ['a missing header', (t: string) => t.split('\n').slice(1).join('\n'), /small\.csv:1: expected a header "time_s,<probe>,…"/],
+    ['a short row', (t: string) => t.replace(/\n([^\n]*),[^,\n]*\n/, '\n$1\n'), /small\.csv:2: 2 values, the header has 3/],
+    ['a value that is not a number', (t: string) => t.replace(/\n0,0,0\n/, '\n0,zero,0\n'), /small\.csv:2: "zero" is not a number/],
+    ['binary garbage', () => '\u0000\u0001PK\u0003\u0004', /small\.csv: expected a header/],
+  ])('a corrupted golden file (%s) is bad input: exit 2, not a failed check', async (_what, damage, message) => {
+    const dir = tmp.make('lw-check-');
+    const file = writeJson(dir, 'small.json', SMALL);
+    const golden = join(dir, 'golden');
+    const g = { dir: golden, tolerance: 0.01, shift: 20e-12 };
+    await runChecks([file], { golden: { ...g, update: true } });
+    writeFileSync(join(golden, 'small.csv'), damage(readFileSync(join(golden, 'small.csv'), 'utf8')));
+    const r = await runChecks([file], { golden: { ...g, update: false } });
+    expect(r.exitCode).toBe(2);
+    expect(r.scenarios[0]!.verdict).toBe('error');
+    expect(r.scenarios[0]!.error!.lines[0]).toMatch(message);
+    expect(r.scenarios[0]!.error!.lines[1]).toMatch(/to create or update it on purpose run: ladderwave check/);
+  });
+
   it('a scenario that cannot be loaded makes the exit code 2, even next to a failed check', async () => {
     const dir = tmp.make('lw-check-');
     const good = writeJson(dir, 'good.json', SMALL);

@@ -146,7 +146,7 @@ describe('ladderwave run --views/--frames/--report', () => {
 
   it.each([
     [['--views', 'waveforms,tdr'], /unknown view 'tdr'.*ladderwave tdr SCENARIO/],
-    [['--views', 'wavefroms'], /unknown view 'wavefroms' in --views \(known: waveforms, map, bounce, eye, all\)/],
+    [['--views', 'wavefroms'], /unknown view 'wavefroms' in --views \(known: waveforms, map, bounce, eye, all, none\)/],
     [['--views', ' , '], /--views needs at least one/],
     [['--frames', '0'], /--frames must be a whole number from 1 to 900/],
     [['--frames', '2.5'], /--frames must be a whole number/],

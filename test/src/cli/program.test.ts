@@ -60,23 +60,6 @@ describe('run', () => {
     expect(io.stdout).toContain('Small matched line');
   });
 
-  it('guards only the write phase against interruption', async () => {
-    const d = dir();
-    const file = writeScenario(d, 's.json', SMALL);
-    const events: string[] = [];
-    const io = collect();
-    const code = await runCli(['run', file, '--out', join(d, 'o'), '--quiet'], {
-      io,
-      guardWrites: () => {
-        events.push('guard');
-        return () => events.push('release');
-      },
-    });
-    expect(code).toBe(0);
-    expect(events).toEqual(['guard', 'release']);
-    expect(io.stdout + io.stderr).toBe('');
-  });
-
   // The matched 10 cm line of SMALL: the receiver settles at half of 1 V (DC divider 50/(50 + 50)),
   // with no overshoot; a max 400 mV on "max" fails, the two others pass.
   const CHECKED = {

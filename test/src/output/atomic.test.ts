@@ -1,8 +1,9 @@
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { AtomicBatch, pendingTempFiles, tempPathFor, writeFileAtomic } from '../../../src/output/atomic.js';
+import { pendingTempFiles, tempPathFor, writeFileAtomic } from '../../../src/output/atomic.js';
 
 let dir: string;
 beforeEach(() => {
@@ -59,28 +60,13 @@ describe('writeFileAtomic', () => {
     await expect(writeFileAtomic(join(dir, 'missing', 'e.txt'), 'x')).rejects.toThrow(/ENOENT/);
     expect(pendingTempFiles()).toEqual([]);
   });
-});
 
-describe('AtomicBatch', () => {
-  it('renames all files only after all were written', async () => {
-    const batch = new AtomicBatch();
-    await batch.stage(join(dir, 'one'), '1');
-    await batch.stage(join(dir, 'two'), '2');
-    expect(readdirSync(dir).filter((f) => !f.startsWith('.'))).toEqual([]);
-    expect(await batch.commit()).toEqual([join(dir, 'one'), join(dir, 'two')]);
-    expect(readdirSync(dir).sort()).toEqual(['one', 'two']);
-  });
-
-  it('removes every staged file when a later one fails', async () => {
-    const batch = new AtomicBatch();
-    await batch.stage(join(dir, 'one'), '1');
-    await expect(
-      batch.stage(join(dir, 'two'), async (sink) => {
-        await sink.write('partial');
-        throw new Error('render failed');
-      }),
-    ).rejects.toThrow('render failed');
-    expect(readdirSync(dir)).toEqual([]);
-    await expect(batch.commit()).rejects.toThrow(/already/);
+  it("removes a killed process's temporary of the same file before writing, and keeps a live one's", async () => {
+    const dead = spawnSync(process.execPath, ['-e', '']).pid!;
+    writeFileSync(join(dir, `.r.xml.${dead}-0badf00d.tmp`), 'half a report');
+    writeFileSync(join(dir, `.r.xml.${process.pid}-0000beef.tmp`), 'in flight');
+    writeFileSync(join(dir, `.other.xml.${dead}-0badf00d.tmp`), 'not this file');
+    await writeFileAtomic(join(dir, 'r.xml'), '<ok/>');
+    expect(readdirSync(dir).sort()).toEqual([`.other.xml.${dead}-0badf00d.tmp`, `.r.xml.${process.pid}-0000beef.tmp`, 'r.xml']);
   });
 });
