@@ -56,7 +56,8 @@ export function tempPathFor(target: string): string {
 export function removePendingTempFilesSync(): void {
   for (const p of [...pending]) {
     try {
-      rmSync(p, { recursive: true, force: true });
+      // Retries: a write still in flight may add a file while the folder is being removed.
+      rmSync(p, { recursive: true, force: true, maxRetries: 5, retryDelay: 2 });
     } catch {
       // already gone, or not removable: nothing more can be done while exiting
     }

@@ -189,7 +189,14 @@ async function removeFolders(made: readonly string[]): Promise<void> {
 async function writeEntry(folder: string, entry: FolderEntry): Promise<void> {
   const path = join(folder, entry.path);
   if (!resolve(path).startsWith(resolve(folder) + sep)) throw new Error(`output entry outside its folder: ${entry.path}`);
-  await mkdir(dirname(path), { recursive: true });
+  // Subfolders one level at a time, never recursively: if an interruption removes the staged folder
+  // meanwhile, nothing here may create it again.
+  const parts = entry.path.split(/[\\/]/).slice(0, -1);
+  for (let k = 1; k <= parts.length; k++) {
+    await mkdir(join(folder, ...parts.slice(0, k))).catch((e: NodeJS.ErrnoException) => {
+      if (e.code !== 'EEXIST') throw e;
+    });
+  }
   const fh = await open(path, 'wx');
   try {
     const sink: ChunkSink = {
