@@ -1,96 +1,51 @@
 // Command-line scenario arguments → files: plain paths, folders (their *.json, *.yaml, *.yml) and
-// glob patterns, so that `ladderwave check "scenarios/**/*.json"` works the same in every shell
-// (Node 20 has no fs.glob). Patterns: `*` and `?` within one path segment, `[abc]`/`[a-z]` classes,
-// and `**` for any number of folders. As in POSIX shells, wildcards do not match a leading dot.
-import { readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+// glob patterns, so that `ladderwave check "scenarios/**/*.json"` works the same in every shell.
+// Patterns are matched by tinyglobby (picomatch syntax: `*`, `?`, `[a-z]`, `**`, braces `{a,b}`,
+// backslash escapes); as in POSIX shells, wildcards do not match a leading dot. Symbolic links to
+// folders are followed, each real file is listed once (a folder linked into itself cannot make a
+// scenario run twice), and an argument naming an existing file or folder is taken as it is even if
+// its name contains glob characters.
+import { readdirSync, realpathSync, statSync } from 'node:fs';
+import { isAbsolute, join, resolve } from 'node:path';
+import { globSync, isDynamicPattern } from 'tinyglobby';
 
 export const SCENARIO_EXTENSIONS = /\.(json|ya?ml)$/i;
 
+/** Whether an argument is a pattern rather than a path (it has glob syntax and names no existing path). */
 export function isGlob(s: string): boolean {
-  return /[*?[]/.test(s);
-}
-
-/** A regular expression for one path segment of a glob. */
-export function segmentRegExp(segment: string): RegExp {
-  let re = '';
-  for (let i = 0; i < segment.length; i++) {
-    const c = segment[i]!;
-    if (c === '*') re += '[^/]*';
-    else if (c === '?') re += '[^/]';
-    else if (c === '[') {
-      const end = segment.indexOf(']', i + 2);
-      if (end < 0) re += '\\[';
-      else {
-        let body = segment.slice(i + 1, end);
-        const neg = body.startsWith('!') || body.startsWith('^');
-        if (neg) body = body.slice(1);
-        re += `[${neg ? '^' : ''}${body.replace(/[\\\]]/g, '\\$&')}]`;
-        i = end;
-      }
-    } else re += c.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-  }
-  return new RegExp(`^${re}$`);
-}
-
-function list(dir: string): { name: string; isDir: boolean }[] {
+  if (!isDynamicPattern(s)) return false;
   try {
-    return readdirSync(dir === '' ? '.' : dir, { withFileTypes: true }).map((d) => {
-      let isDir = d.isDirectory();
-      if (d.isSymbolicLink()) {
-        try {
-          isDir = statSync(join(dir === '' ? '.' : dir, d.name)).isDirectory();
-        } catch {
-          isDir = false;
-        }
-      }
-      return { name: d.name, isDir };
-    });
+    statSync(s);
+    return false;
   } catch {
-    return [];
+    return true;
   }
 }
 
-/** Files matching a glob pattern (paths spelled as the pattern is: relative stays relative), sorted. */
+/** The real path of a file, or the path itself when it cannot be resolved. */
+function realPath(p: string): string {
+  try {
+    return realpathSync(p);
+  } catch {
+    return p;
+  }
+}
+
+/**
+ * Files matching a glob pattern, sorted, one per real file: the path through no symbolic link when
+ * there is one, else the shortest. A relative pattern gives paths relative to the working folder,
+ * an absolute one absolute paths.
+ */
 export function globFiles(pattern: string): string[] {
-  const abs = pattern.startsWith('/');
-  const segments = pattern.split('/').filter((s, i) => s !== '' || i === 0);
-  if (abs) segments.shift();
-  const out = new Set<string>();
-  const walk = (dir: string, k: number): void => {
-    if (k === segments.length) return;
-    const seg = segments[k]!;
-    const last = k === segments.length - 1;
-    const at = (name: string) => (dir === '' ? name : dir === '/' ? `/${name}` : `${dir}/${name}`);
-    if (seg === '**') {
-      // zero folders...
-      walk(dir, k + 1);
-      // ...or one more, then ** again
-      for (const e of list(dir)) if (e.isDir && !e.name.startsWith('.')) walk(at(e.name), k);
-      return;
-    }
-    if (!isGlob(seg)) {
-      const p = at(seg);
-      if (last) {
-        try {
-          if (statSync(p).isFile()) out.add(p);
-        } catch {
-          // no such file
-        }
-      } else walk(p, k + 1);
-      return;
-    }
-    const re = segmentRegExp(seg);
-    for (const e of list(dir)) {
-      if (e.name.startsWith('.') && !seg.startsWith('.')) continue;
-      if (!re.test(e.name)) continue;
-      if (last) {
-        if (!e.isDir) out.add(at(e.name));
-      } else if (e.isDir) walk(at(e.name), k + 1);
-    }
-  };
-  walk(abs ? '/' : '', 0);
-  return [...out].sort();
+  const found = globSync(pattern, { absolute: isAbsolute(pattern), expandDirectories: false, onlyFiles: true, dot: false, followSymbolicLinks: true });
+  const byReal = new Map<string, string>();
+  for (const f of found) {
+    const real = realPath(f);
+    const prev = byReal.get(real);
+    const direct = (p: string) => resolve(p) === real;
+    if (prev === undefined || (direct(f) && !direct(prev)) || (direct(f) === direct(prev) && f.length < prev.length)) byReal.set(real, f);
+  }
+  return [...byReal.values()].sort();
 }
 
 export interface ExpandedFiles {
@@ -99,18 +54,31 @@ export interface ExpandedFiles {
   problems: string[];
 }
 
+/** The scenario files directly in a folder, sorted. */
+function folderScenarios(dir: string): string[] {
+  try {
+    return readdirSync(dir, { withFileTypes: true })
+      .filter((e) => !e.name.startsWith('.') && SCENARIO_EXTENSIONS.test(e.name) && (e.isFile() || (e.isSymbolicLink() && statSync(join(dir, e.name), { throwIfNoEntry: false })?.isFile())))
+      .map((e) => join(dir, e.name))
+      .sort();
+  } catch {
+    return [];
+  }
+}
+
 /**
- * Expands scenario arguments in order, without duplicates. A plain path that does not exist is kept
- * (loading it reports the problem, with the file's name); a pattern or folder that yields nothing is
- * a problem.
+ * Expands scenario arguments in order, each real file once. A plain path that does not exist is
+ * kept (loading it reports the problem, with the file's name); a pattern or folder that yields
+ * nothing is a problem.
  */
 export function expandScenarioArgs(args: readonly string[]): ExpandedFiles {
   const files: string[] = [];
   const seen = new Set<string>();
   const problems: string[] = [];
   const add = (f: string) => {
-    if (!seen.has(f)) {
-      seen.add(f);
+    const real = realPath(f);
+    if (!seen.has(real)) {
+      seen.add(real);
       files.push(f);
     }
   };
@@ -121,17 +89,8 @@ export function expandScenarioArgs(args: readonly string[]): ExpandedFiles {
       found.forEach(add);
       continue;
     }
-    let isDir = false;
-    try {
-      isDir = statSync(a).isDirectory();
-    } catch {
-      isDir = false;
-    }
-    if (isDir) {
-      const found = list(a)
-        .filter((e) => !e.isDir && !e.name.startsWith('.') && SCENARIO_EXTENSIONS.test(e.name))
-        .map((e) => join(a, e.name))
-        .sort();
+    if (statSync(a, { throwIfNoEntry: false })?.isDirectory()) {
+      const found = folderScenarios(a);
       if (found.length === 0) problems.push(`${a}: a folder with no scenario file (.json, .yaml, .yml) in it`);
       found.forEach(add);
     } else add(a);

@@ -2,7 +2,7 @@
 // waveforms, and report (terminal table, JUnit XML, JSON, Markdown). See docs/checks-and-sweeps.md.
 export { measureNet, sourceWaveform, type NetMeasurements } from '../output/measure-net.js';
 export { addMeasurementSections, type ChecksSection } from '../output/measurement-sections.js';
-export { expandScenarioArgs, globFiles, isGlob, segmentRegExp, SCENARIO_EXTENSIONS, type ExpandedFiles } from './files.js';
+export { expandScenarioArgs, globFiles, isGlob, SCENARIO_EXTENSIONS, type ExpandedFiles } from './files.js';
 export {
   compareWaveform,
   compareWithGolden,

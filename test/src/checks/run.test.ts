@@ -1,10 +1,10 @@
 // The check runner on the demo folder, golden files end to end, exit codes, scenario files by glob,
 // and the measurement sections of summary.json.
 import { PNG } from 'pngjs';
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { expandScenarioArgs, globFiles, segmentRegExp } from '../../../src/checks/files.js';
+import { expandScenarioArgs, globFiles } from '../../../src/checks/files.js';
 import { checkExitCode, runChecks } from '../../../src/checks/run.js';
 import { runScenarioFile } from '../../../src/output/run.js';
 import { TempDirs, writeJson } from '../sweep/fixtures.js';
@@ -146,8 +146,26 @@ describe('scenario arguments', () => {
     const e = expandScenarioArgs([`${dir}/x1.json`, dir, `${dir}/*.nope`, `${dir}/missing.json`]);
     expect(e.files).toEqual([`${dir}/x1.json`, `${dir}/x2.yaml`, `${dir}/missing.json`]);
     expect(e.problems).toEqual([`${dir}/*.nope: no scenario file (.json, .yaml, .yml) matches this pattern`]);
-    expect(segmentRegExp('a.b*').test('a.bcd')).toBe(true);
-    expect(segmentRegExp('a.b*').test('axbcd')).toBe(false);
+  });
+
+  it('follows a folder linked into itself without listing a scenario twice (it once ran 41 times)', () => {
+    const dir = tmp.make('lw-glob-');
+    mkdirSync(join(dir, 'nets', 'sub'), { recursive: true });
+    writeFileSync(join(dir, 'nets', 'a.json'), '{}');
+    writeFileSync(join(dir, 'nets', 'sub', 'b.json'), '{}');
+    symlinkSync('..', join(dir, 'nets', 'sub', 'up'), 'dir');
+    symlinkSync('.', join(dir, 'nets', 'self'), 'dir');
+    expect(globFiles(`${dir}/nets/**/*.json`)).toEqual([`${dir}/nets/a.json`, `${dir}/nets/sub/b.json`]);
+    expect(expandScenarioArgs([`${dir}/nets/**/*.json`, `${dir}/nets/a.json`, `${dir}/nets/sub/up/a.json`]).files).toEqual([`${dir}/nets/a.json`, `${dir}/nets/sub/b.json`]);
+  });
+
+  it('expands braces, honours backslash escapes, and takes an existing name with glob characters as it is', () => {
+    const dir = tmp.make('lw-glob-');
+    mkdirSync(join(dir, 'v[2]'));
+    for (const f of ['p.json', 'q.yaml', 'r.json', 'v[2]/s.json', 'net (copy).json']) writeFileSync(join(dir, f), '{}');
+    expect(globFiles(`${dir}/{p,q}.*`)).toEqual([`${dir}/p.json`, `${dir}/q.yaml`]);
+    expect(globFiles(`${dir}/v\\[2\\]/*.json`)).toEqual([`${dir}/v[2]/s.json`]);
+    expect(expandScenarioArgs([`${dir}/v[2]`, `${dir}/net (copy).json`]).files).toEqual([`${dir}/v[2]/s.json`, `${dir}/net (copy).json`]);
   });
 });
 
