@@ -202,7 +202,8 @@ function commandLine(rng: Rng, value: Json): string[] {
   if (r < 70) return ['check', 'FILE', '--json', 'OUT/check.json', '-q'];
   if (r < 78) return ['line', 'FILE', '--json', ...(rng.chance(0.3) ? ['--freq', rng.pick(['1e300Hz', '1GHz', '0Hz', '-1Hz', '1THz'])] : [])];
   if (r < 84) return ['tdr', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.4) ? ['--rise', rng.pick(['1s', '1fs', '1e-308s', '35ps', '1ns'])] : []), ...(rng.chance(0.2) ? ['--z0', rng.pick(['2.2e-308ohm', '50ohm', '1e300ohm'])] : [])];
-  if (r < 90) return ['eye', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.3) ? ['--probe', probe] : [])];
+  if (r < 88) return ['eye', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.3) ? ['--probe', probe] : [])];
+  if (r < 90) return ['sparams', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.3) ? ['--points', rng.pick(['201', '1', '1e9', 'x'])] : [])];
   if (r < 96) {
     const vary = rng.pick(['driver.resistance=10ohm,20ohm', 'driver.resistance=1e400..1:2', 'driver.resistance=1e300ohm..1ohm:2', 'run.cellsPerRise=4,8', 'nope.x=1,2']);
     return ['sweep', 'FILE', '--vary', vary, '--out', 'OUT', '-q', '-j', '1'];
