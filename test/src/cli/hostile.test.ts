@@ -114,14 +114,6 @@ describe('net-level errors carry the line:column of the item involved', () => {
     expect(r.code).toBe(2);
     expect(r.stderr).toBe(`${file}:5:5 short: two ideal sources or rails (0 V and 1 V) are tied together by zero-ohm paths\n`);
   });
-
-  it("tdr's missing reference impedance, at the route", async () => {
-    const d = dir();
-    const file = writeScenario(d, 'parts.json', `{\n  "title": "parts only",\n  "driver": ${JSON.stringify(SMALL.driver)},\n  "route": [{ "name": "r1", "series": { "r": "10ohm" } }]\n}\n`);
-    const r = await cli(['tdr', file, '--out', join(d, 'o')]);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(new RegExp(`^${file.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:4:3 route: a TDR needs a reference impedance`));
-  });
 });
 
 describe('a 0 Ω driver and a lone 0 Ω part are accepted, as the scenario format says', () => {
