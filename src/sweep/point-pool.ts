@@ -48,7 +48,7 @@ export class PointPool {
 
   constructor(opts: PointPoolOptions = {}) {
     this.jobs = Math.max(1, opts.jobs ?? defaultJobs());
-    this.options = { force: opts.force };
+    this.options = { force: opts.force, limits: opts.limits };
     this.local = this.jobs === 1 || (opts.useMainThread ?? true);
   }
 
