@@ -33,12 +33,21 @@ class Rng {
   }
 }
 
-/** The demo scenarios (scenarios/*.json and scenarios/ci/*.json) as plain values. */
+/**
+ * The demo scenarios (scenarios/*.json and scenarios/ci/*.json) as plain values, and the branched
+ * nets of test/fixtures/scenarios (branched-*.json) while no demo has branches of its own, so that
+ * receivers, branch items and their names are mutated too.
+ */
 export function demoScenarios(repo: string): { name: string; value: Json }[] {
   const out: { name: string; value: Json }[] = [];
-  for (const dir of ['scenarios', 'scenarios/ci']) {
+  const dirs: [string, (f: string) => boolean][] = [
+    ['scenarios', (f) => f.endsWith('.json')],
+    ['scenarios/ci', (f) => f.endsWith('.json')],
+    ['test/fixtures/scenarios', (f) => f.startsWith('branched-') && f.endsWith('.json')],
+  ];
+  for (const [dir, wanted] of dirs) {
     for (const f of readdirSync(join(repo, dir)).sort()) {
-      if (f.endsWith('.json')) out.push({ name: f.replace(/\.json$/, ''), value: JSON.parse(readFileSync(join(repo, dir, f), 'utf8')) as Json });
+      if (wanted(f)) out.push({ name: f.replace(/\.json$/, ''), value: JSON.parse(readFileSync(join(repo, dir, f), 'utf8')) as Json });
     }
   }
   return out;
@@ -135,9 +144,7 @@ function mutate(v: Json, rng: Rng): string {
       if (lists.length === 0) return mutate(v, rng);
       const q = rng.pick(lists);
       const list = get(v, q) as Json[];
-      // Part lists stay short (many parallel parts are a size the engine does not yet count).
-      const parts = q.some((k) => k === 'parts' || k === 'shunt');
-      const times = parts ? rng.pick([1, 2]) : rng.pick([2, 5, 40]);
+      const times = rng.pick([2, 5, 40]);
       const item = list[rng.int(list.length)]!;
       for (let i = 0; i < times; i++) list.push(structuredClone(item));
       return `${q.join('.')} += ${times} copies`;
@@ -205,7 +212,7 @@ function commandLine(rng: Rng, value: Json): string[] {
   if (r < 88) return ['eye', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.3) ? ['--probe', probe] : [])];
   if (r < 90) return ['sparams', 'FILE', '--out', 'OUT', '-q', ...(rng.chance(0.3) ? ['--points', rng.pick(['201', '1', '1e9', 'x'])] : [])];
   if (r < 96) {
-    const vary = rng.pick(['driver.resistance=10ohm,20ohm', 'driver.resistance=1e400..1:2', 'driver.resistance=1e300ohm..1ohm:2', 'run.cellsPerRise=4,8', 'nope.x=1,2']);
+    const vary = rng.pick(['driver.resistance=10ohm,20ohm', 'driver.resistance=1e400..1:2', 'driver.resistance=1e300ohm..1ohm:2', 'run.cellsPerRise=4,8', 'nope.x=1,2', 'route.hub.branch[0].route.armA.length=1cm,20cm', 'route.hub.branch[1].receiver.parts[0].r=1e-300ohm,50ohm']);
     return ['sweep', 'FILE', '--vary', vary, '--out', 'OUT', '-q', '-j', '1'];
   }
   return ['run', 'FILE', '--views', 'none', '--force', '--out', 'OUT', '-q'];
@@ -214,7 +221,9 @@ function commandLine(rng: Rng, value: Json): string[] {
 /** Case `k` of the run seeded with `seed`. */
 export function fuzzCase(demos: readonly { name: string; value: Json }[], seed: number, k: number): FuzzCase {
   const rng = new Rng(Xoshiro128ss.forSample(seed, k));
-  const demo = rng.pick(demos);
+  // Branched nets are one seed among many; a quarter of the cases start from one.
+  const branched = demos.filter((d) => d.name.startsWith('branched-'));
+  const demo = branched.length && rng.chance(0.25) ? rng.pick(branched) : rng.pick(demos);
   const value = structuredClone(demo.value);
   const edits: string[] = [`from ${demo.name}`];
   const n = 1 + rng.int(3);

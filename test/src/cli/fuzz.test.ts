@@ -45,9 +45,12 @@ async function violations(c: FuzzCase, root: string): Promise<string[]> {
     if (existsSync(join(out, 'check.json'))) JSON.parse(readFileSync(join(out, 'check.json'), 'utf8'));
   } else if (code >= 2 && existsSync(out)) bad.push(`exit ${code} but ${out} exists: ${readdirSync(out).join(', ')}`);
   if (code <= 1 && (verb === 'run' || verb === 'eye') && existsSync(out)) {
-    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')) as { probes: Record<string, { min: unknown; max: unknown; final: unknown }> };
-    for (const [name, s] of Object.entries(summary.probes)) {
-      if (![s.min, s.max, s.final].every((x) => typeof x === 'number' && Number.isFinite(x))) bad.push(`summary.json: probe ${name} has min/max/final ${JSON.stringify([s.min, s.max, s.final])}`);
+    type Stats = Record<string, { min: unknown; max: unknown; final: unknown }>;
+    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')) as { probes: Stats; receivers?: Stats };
+    for (const [section, entries] of [['probe', summary.probes], ['receiver', summary.receivers ?? {}]] as const) {
+      for (const [name, s] of Object.entries(entries)) {
+        if (![s.min, s.max, s.final].every((x) => typeof x === 'number' && Number.isFinite(x))) bad.push(`summary.json: ${section} ${name} has min/max/final ${JSON.stringify([s.min, s.max, s.final])}`);
+      }
     }
     if (existsSync(join(out, 'probes.csv')) && /\b(NaN|Infinity)\b/.test(readFileSync(join(out, 'probes.csv'), 'utf8').split('\n').slice(1).join('\n'))) bad.push('probes.csv holds NaN or Infinity');
   }
