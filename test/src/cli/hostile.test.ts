@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../../src/cli/program.js';
 import { runTdrFile } from '../../../src/output/tdr.js';
+import { refusalLines } from '../../../src/engine-text.js';
 import { RunRefused } from '../../../sim/errors.js';
 import { collectOutput, SMALL, tempDirs, writeScenario } from './fixtures.js';
 
@@ -112,7 +113,7 @@ describe('net-level errors carry the line:column of the item involved', () => {
     );
     const r = await cli(['run', file, '--out', join(d, 'o')]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toBe(`${file}:5:5 short: two ideal sources or rails (0 V and 1 V) are tied together by zero-ohm paths\n`);
+    expect(r.stderr).toBe(`${file}:5:5 short: two ideal sources or rails (0 V and 1 V) are tied together by zero-ohm paths (with driver)\n`);
   });
 });
 
@@ -155,7 +156,8 @@ describe('refusal texts suggest values that run', () => {
     const limits = { maxCellSteps: 2e6 };
     const e = await runTdrFile(file, join(d, 'o'), { rise: 1e-12, limits }).catch((x: unknown) => x);
     expect(e).toBeInstanceOf(RunRefused);
-    const text = (e as Error).message;
+    // The words the CLI prints for it.
+    const text = refusalLines(e as RunRefused).join('\n');
     expect(text).not.toMatch(/cellsPerRise|duration up to|e[+-]\d+ s/);
     const m = /--rise (\d+(?:\.\d+)?)(fs|ps|ns|us)\b/.exec(text);
     expect(m, text).not.toBeNull();
