@@ -1,78 +1,49 @@
-// The ladderwave library: `import { loadScenario, simulate, runScenarioFile } from 'ladderwave'`.
-// The command line (src/cli) is built on exactly these functions.
+// The ladderwave library: what a user's own scripts and tests need, in the order of the pipeline
+// (load → simulate → measure → check → render → write) and the other commands as whole functions.
+// docs/library.md documents every name here; test/src/index.test.ts keeps the two in step. The CLI
+// is built on the same functions. Everything else under src/ and sim/ is internal and may change.
 
-// Scenario files → validated nets.
-export { checkScenario, loadScenario, parseScenario, readScenario, scenarioFromValue, type CheckResult } from './scenario/load.js';
+// Load: scenario files and text → validated nets, every problem with file, line:column and key path.
+export { checkScenario, loadScenario, scenarioFromValue, type CheckResult } from './scenario/load.js';
 export { formatProblem, ScenarioError, type Problem } from './scenario/problems.js';
+export { readScenarioFile, type LoadedScenario } from './output/run.js';
+export type { Branch, LineRLGC, NamedReceiver, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
 
-// The engine.
+// Simulate: the engine, its size limits and its errors.
 export { planRun, simulate, type SimulateOptions } from '../sim/simulate.js';
-export { settledProbeLevels, type SettledLevels } from '../sim/settled.js';
-export { compileNet, type Circuit } from '../sim/circuit.js';
 export { NetError, RunDiverged, RunRefused, type NetProblem, type Overrun } from '../sim/errors.js';
 export { DEFAULT_LIMITS, type RunLimits } from '../sim/limits.js';
-export type { Branch, LineRLGC, NamedReceiver, Net, Part, ProbeSpec, RouteItem, RunSettings, Signal } from '../sim/model.js';
-export type { Discretization, DtRule, ProbeRecord, RouteMapPath, RouteMapRecord, SegmentPlan, SimResult } from '../sim/result.js';
+export { probeTrace } from '../sim/result.js';
+export type { Discretization, DtRule, ProbeRecord, SimResult } from '../sim/result.js';
 
-// Outputs.
-export {
-  OUTPUT_FILES,
-  OutputError,
-  readScenarioFile,
-  renderResult,
-  runScenarioFile,
-  writeRunOutputs,
-  type LoadedScenario,
-  type RunOptions,
-  type RunOutputs,
-  type RunPhase,
-  type RunReport,
-} from './output/run.js';
-export { csvChunks, csvHeader, probeRecordToCsv, writeCsv } from './output/csv.js';
-export { probeTrace, probeTraces } from '../sim/result.js';
-export { crossing50, probeStats, type Crossing50, type CrossingLevel, type ProbeStats } from './output/crossing.js';
-export { crossingLevels, netSettledLevels, type NetSettledLevels, type SettledPair } from './output/net-levels.js';
-export { addSummarySection, buildSummary, sha256Hex, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
-export { writeFileAtomic, type ChunkSink } from './output/atomic.js';
-export { checkOutputTarget, writeOutputFolder, type FolderEntry } from './output/folder.js';
-export { toolInfo, type ToolInfo } from './output/tool.js';
+// Measure: every probe's IEEE 181 measurements and the scenario's checks, as `run` and `check` do.
+export { measureNet, type NetMeasurements } from './output/measure-net.js';
+export { measureProbe, type MeasureOptions, type ProbeMeasurements } from './measure/summary.js';
+export type { CheckResult as CheckVerdict, CheckSpec, MetricName } from './measure/checks.js';
 
-// Views, the eye and the HTML report (renderers load on first use).
-export { VIEW_NAMES, DEFAULT_RUN_VIEWS, VIEW_FILES, parseViewList, planViews, type ViewName, type ViewPlan } from './views/select.js';
-export { measureEye, eyeRunDuration, eyeTiming, type EyeInput, type EyeMeasurement } from './views/eye.js';
-export { eyeScenarioFile, EyeRequestError, EYE_FILES, type EyeRunOptions, type EyeRunReport } from './output/eye.js';
-export { writeRunFiles, selectProbes, type OutputFile } from './output/run.js';
-export { buildReport, REPORT_FILE, type ReportImage, type ReportInput } from './report/index.js';
+// Check: scenario files with their checks and golden waveforms, and the reports `check` writes.
+export { checkScenarioFile, runChecks, type CheckRunOptions, type CheckRunReport, type ScenarioReport } from './checks/run.js';
+export { formatCheckTable, toJsonReport, toJUnitXml, toMarkdown } from './checks/report.js';
 
-// Coupled sections (crosstalk, differential pairs): matrices, modes and the `line` report. The engine
-// parts are standalone and not yet wired into runs (docs/coupled-lines.md).
-export {
-  coupledFromMicrostrip,
-  coupledFromStripline,
-  coupledLineProblems,
-  maxwellFromMutual,
-  modalAnalysis,
-  mutualFromMaxwell,
-  pairFromModes,
-  pairMetrics,
-  type CoupledLine,
-  type ModalAnalysis,
-  type PairMetrics,
-} from '../sim/coupled/index.js';
-export { coupledFromOption, evaluateCoupled, formatCoupledReport, type CoupledInput, type CoupledReport } from './lines-report/index.js';
-// S-parameters and Touchstone files.
-export { parseTouchstone, readTouchstoneFile, toNetworkData, formatTouchstone, portsFromFileName, touchstoneFileName, type TouchstoneData, type WriteOptions } from './touchstone/index.js';
-export { computeSparams, runSparamsFile, SPARAMS_FILES, type SparamsReport, type SparamsRunOptions, type SparamsSummary } from './output/sparams.js';
-export { routeSParameters, selectRoute, type RouteSelection } from '../sim/sparams/route.js';
-export { defaultGrid, gridFrequencies, type GridSpec } from '../sim/sparams/grid.js';
-export { matrixAt, renormalize, singularValueTrace, toKind, entry, type NetworkData } from '../sim/sparams/network.js';
-export { abcdToS, sToAbcd, convertMatrix, type ParamKind } from '../sim/sparams/convert.js';
-export { vectorFit, estimateDelays, evaluateFit, type FitOptions, type FitResult, type SampledResponse } from '../sim/sparams/vector-fit.js';
-export { fitBlock, type BlockFit, type BlockFitOptions } from '../sim/sparams/block.js';
-export { passivityOfData, passivityOfFit, passivityAboveBand, type PassivityReport } from '../sim/sparams/passivity.js';
-export { evaluateModel, type RationalModel } from '../sim/sparams/rational.js';
-export { createCompanion, companionHistory, companionAdvance, companionCurrent, startAtDc, type Companion } from '../sim/sparams/companion.js';
-export { createWaveCompanion, startWaveAtDc, waveHistory, waveAdvance, type WaveCompanion } from '../sim/sparams/wave-companion.js';
-// Termination advice (`ladderwave tame`).
-export { advise, adviceJson, adviceMarkdown, formatAdviceTable, optionRows, renderAdvicePlot, winner, winnerValue, writeWinner, OBJECTIVES, parseObjective, TOPOLOGIES, neighbours, membersBetween, parseSeriesName, seriesMantissas, SERIES_NAMES, type Advice, type AdviseRequest, type OptionResult, type MonteCarlo, type OptionRow, type ObjectiveName, type TopologyId, type SeriesName } from './terminate/index.js';
-export { PointPool, type PointPoolOptions } from './sweep/point-pool.js';
+// Render: the views as PNG and the self-contained report page.
+export { renderResult } from './output/run.js';
+export { VIEW_NAMES, type ViewName } from './views/select.js';
+export { buildReport, type ReportInput } from './report/index.js';
+
+// Write: a whole run (the `run` command), or its files one by one.
+export { OUTPUT_FILES, OutputError, runScenarioFile, writeRunOutputs, type RunOptions, type RunOutputs, type RunReport } from './output/run.js';
+export { probeRecordToCsv, writeCsv } from './output/csv.js';
+export { addSummarySection, buildSummary, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
+
+// The other commands as functions: eye, tdr, sweep and merge, sparams, line, Touchstone files, tame.
+export { eyeScenarioFile, type EyeRunOptions, type EyeRunReport } from './output/eye.js';
+export { runTdrFile, type TdrReport, type TdrRunOptions } from './output/tdr.js';
+export { mergeSweeps, runSweep, type SweepCall, type SweepOutcome, type SweepRunOptions } from './sweep/run.js';
+export { runSparamsFile, type SparamsReport, type SparamsRunOptions } from './output/sparams.js';
+export { evaluateLine, type LineReport } from './lines-report/evaluate.js';
+export { evaluateCoupled, type CoupledReport } from './lines-report/coupled.js';
+export { formatTouchstone, parseTouchstone, readTouchstoneFile, type TouchstoneData } from './touchstone/index.js';
+export { advise, adviceJson, adviceMarkdown, writeWinner, type Advice, type AdviseRequest, type OptionResult } from './terminate/index.js';
+
+// Exit codes, as the CLI uses them, for scripts that wrap the library.
+export { describeFailure, EXIT, type ExitCode } from './exit-codes.js';
