@@ -33,7 +33,7 @@ export { buildReport, type ReportInput } from './report/index.js';
 // Write: a whole run (the `run` command), or its files one by one.
 export { OUTPUT_FILES, OutputError, runScenarioFile, writeRunOutputs, type RunOptions, type RunOutputs, type RunReport } from './output/run.js';
 export { probeRecordToCsv, writeCsv } from './output/csv.js';
-export { addSummarySection, buildSummary, summaryToJson, type Summary, type SummaryInput } from './output/summary.js';
+export { addSummarySection, buildSummary, summaryToJson, type Summary, type SummaryInput, type SummarySections } from './output/summary.js';
 
 // The other commands as functions: eye, tdr, sweep and merge, sparams, line, Touchstone files, tame.
 export { eyeScenarioFile, type EyeRunOptions, type EyeRunReport } from './output/eye.js';

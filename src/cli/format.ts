@@ -1,6 +1,4 @@
 // Human-readable text for the terminal: aligned tables and the per-scenario run summary.
-import type { CrosstalkEntry } from '../output/crosstalk.js';
-import type { ReceiverEntry } from '../output/receivers.js';
 import type { RunReport } from '../output/run.js';
 import type { CheckResult } from '../measure/index.js';
 import { dtReasonText } from '../engine-text.js';
@@ -56,12 +54,12 @@ export function formatRunReport(report: RunReport): string {
   ]);
   lines.push(...section('probes', table([['', 'min', 'max', 'final', '50 % at'], ...probeRows], ['l', 'r', 'r', 'r', 'r']), lw));
   if (report.checks.length > 0) lines.push(...section('checks', checkLines(report.checks), lw));
-  const receivers = report.summary.receivers as Record<string, ReceiverEntry> | undefined;
+  const receivers = report.summary.receivers;
   if (receivers) {
     const rows = Object.entries(receivers).map(([name, r]) => [name, r.recorded ? r.probe : `${r.probe} (added)`, si(r.min, 'V'), si(r.max, 'V'), si(r.final, 'V')]);
     lines.push(...section('receivers', table([['', 'probe', 'min', 'max', 'final'], ...rows], ['l', 'l', 'r', 'r', 'r']), lw));
   }
-  const crosstalk = report.summary.crosstalk as Record<string, CrosstalkEntry> | undefined;
+  const crosstalk = report.summary.crosstalk;
   if (crosstalk) {
     const entries = Object.entries(crosstalk);
     const swing = entries[0][1].aggressorSwingV;

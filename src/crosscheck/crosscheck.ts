@@ -69,7 +69,17 @@ export function crossCheck(net: Net, result: Pick<SimResult, 'record'>, options:
 }
 
 /** The `crossCheck` section of summary.json (SI units; nothing that changes between runs). */
-export function crossCheckSummary(c: CrossCheckResult): Record<string, unknown> {
+export interface CrossCheckSection {
+  method: string;
+  swing: number;
+  swingFrom: CrossCheckResult['swingFrom'];
+  largestPercentOfSwing: number;
+  largestAt: string | null;
+  probes: Record<string, { maxAbs: number; percentOfSwing: number; time: number }>;
+  spectral: { fftPoints: number; step: number; window: number; sigma: number; wrapBound: number };
+}
+
+export function crossCheckSummary(c: CrossCheckResult): CrossCheckSection {
   const probes = keyedRecord<{ maxAbs: number; percentOfSwing: number; time: number }>();
   for (const p of c.probes) probes[p.name] = { maxAbs: p.maxAbs, percentOfSwing: p.percentOfSwing, time: p.time };
   return {

@@ -1,8 +1,9 @@
 // summary.json: what was run, how it was discretized, and per-probe statistics.
 //
 // The summary is a plain object built in sections. The core sections (tool, scenario,
-// discretization, record, probes) are filled here; other modules add their own top-level sections
-// (for example "measurements" or "checks") with {@link addSummarySection} before it is written.
+// discretization, record, probes) are filled here; the optional sections (SummarySections:
+// measurements, checks, receivers, crosstalk, eye, crossCheck) are added by the modules that compute them with
+// {@link addSummarySection} before it is written.
 // Every number is in SI base units (s, V, m, ohm). The file holds nothing that changes from one run
 // to the next (no timestamps, no wall time), so the same scenario and tool version give the same
 // bytes.
@@ -16,6 +17,12 @@ import { netItems } from '../../sim/route-tree.js';
 import { dtReasonText } from '../engine-text.js';
 import { toolInfo, type ToolInfo } from './tool.js';
 import { keyedRecord } from '../keyed.js';
+import type { ProbeMeasurements } from '../measure/summary.js';
+import type { EyeMeasurement } from '../views/eye.js';
+import type { CrossCheckSection } from '../crosscheck/crosscheck.js';
+import type { ChecksSection } from './measurement-sections.js';
+import type { ReceiverEntry } from './receivers.js';
+import type { CrosstalkEntry } from './crosstalk.js';
 
 /** Bumped when a core section changes shape incompatibly. */
 export const SUMMARY_FORMAT = 1;
@@ -51,7 +58,23 @@ export type SummarySegment = Omit<SegmentPlan, 'z0'> & {
 /** The discretization as summary.json holds it: the engine's plan, labelled segments, and the Δt rule in words. */
 export type SummaryDiscretization = Omit<Discretization, 'segments'> & { segments: SummarySegment[]; dtReason: string };
 
-export interface Summary {
+/** summary.json's optional sections, each added by the module named. */
+export interface SummarySections {
+  /** Per probe: levels, every edge, delays, noise margins, flags (measurement-sections.ts; docs/measurements.md). */
+  measurements?: Record<string, ProbeMeasurements>;
+  /** The scenario's check verdicts, when it has checks (measurement-sections.ts). */
+  checks?: ChecksSection;
+  /** Every receiver of a branched net, main receiver first (receivers.ts). */
+  receivers?: Record<string, ReceiverEntry>;
+  /** The quiet nets of a multi-net scenario: crosstalk against the aggressors (crosstalk.ts). */
+  crosstalk?: Record<string, CrosstalkEntry>;
+  /** The eye diagram's measurements (`run --views eye` and the `eye` command). */
+  eye?: { probe: string } & EyeMeasurement;
+  /** The spectral solution's differences from the time-domain one (`run --cross-check`, crosscheck/). */
+  crossCheck?: CrossCheckSection;
+}
+
+export interface Summary extends SummarySections {
   format: number;
   tool: ToolInfo;
   scenario: ScenarioInfo;
@@ -59,8 +82,6 @@ export interface Summary {
   record: RecordInfo;
   /** Keyed by probe name, in probe order. */
   probes: Record<string, ProbeStats>;
-  /** Sections added by other modules. */
-  [section: string]: unknown;
 }
 
 export interface SummaryInput {
@@ -122,10 +143,10 @@ function labelledSegments(segments: readonly SegmentPlan[], net: Net): SummarySe
   });
 }
 
-/** Adds a top-level section; refuses to replace one that is already there. */
-export function addSummarySection(summary: Summary, key: string, value: unknown): void {
+/** Adds one of the optional sections; refuses to replace one that is already there. */
+export function addSummarySection<K extends keyof SummarySections>(summary: Summary, key: K, value: NonNullable<SummarySections[K]>): void {
   if (Object.prototype.hasOwnProperty.call(summary, key)) throw new Error(`summary already has a section '${key}'`);
-  summary[key] = value;
+  (summary as SummarySections)[key] = value;
 }
 
 /** Pretty JSON with a final newline. Non-finite numbers (which JSON cannot hold) become null. */

@@ -8,7 +8,7 @@ import { describeFailure, EXIT, UsageError, worstExitCode, type ExitCode } from 
 import { formatRunReport } from '../format.js';
 import { CHECK_FAILED } from '../../checks/index.js';
 import { CROSSCHECK_FILE, crossCheckRun, formatCrossCheck } from '../../crosscheck/index.js';
-import { eyeCoverageNote, type EyeMeasurement } from '../../views/eye.js';
+import { eyeCoverageNote } from '../../views/eye.js';
 import { DEFAULT_RUN_VIEWS, parseFrameCount, parseViewList, VIEW_DESCRIPTIONS, VIEW_FILES, VIEW_NAMES, ViewListError, type ViewName } from '../../views/select.js';
 
 export interface RunCommandOptions {
@@ -115,7 +115,7 @@ export async function runCommand(files: string[], opts: RunCommandOptions, ctx: 
         for (const s of report.skippedViews) io.err(`warning: ${files[i]}: no ${s.view} view: ${s.reason}\n`);
         for (const s of report.partialViews) io.err(`warning: ${files[i]}: ${s.view} view: ${s.reason}\n`);
         if (report.framesSkipped) io.err(`warning: ${files[i]}: no frames: ${report.framesSkipped}\n`);
-        const eye = report.summary.eye as EyeMeasurement | undefined;
+        const eye = report.summary.eye;
         const drawn = report.files.some((f) => basename(f) === VIEW_FILES.eye);
         const thin = eye && drawn ? eyeCoverageNote(eye) : null;
         if (thin) io.err(`warning: ${files[i]}: ${thin}\n`);

@@ -2,9 +2,9 @@
 //   [--only IDS] [--keep-existing] [--search-cells N] [--top N] [--no-write] [--jobs N] [--out DIR] [--quiet]`
 // Thin: the work is in src/terminate (advise and the writers).
 import type { Command } from 'commander';
-import { mkdir } from 'node:fs/promises';
 import { basename, extname, join } from 'node:path';
 import { writeFileAtomic } from '../../output/atomic.js';
+import { prepareFileTarget } from '../../output/folder.js';
 import { adviceJson, adviceMarkdown, advise, formatAdviceTable, OBJECTIVES, parseObjective, parseSeriesName, renderAdvicePlot, SERIES_NAMES, TOPOLOGIES, winner, writeWinner, type TopologyId } from '../../terminate/index.js';
 import { describeFailure, EXIT, type ExitCode } from '../../exit-codes.js';
 import type { CliContext } from '../context.js';
@@ -80,15 +80,11 @@ export async function tameCommand(file: string, opts: TameCommandOptions, ctx: C
     const best = winner(advice);
     const files: { png?: string; scenario?: string } = { png: 'tame.png' };
     if (best && opts.write !== false) files.scenario = await writeWinner(advice, best);
-    await mkdir(out, { recursive: true });
-    const done = ctx.guardWrites?.();
-    try {
-      await writeFileAtomic(join(out, 'tame.png'), await renderAdvicePlot(advice, top));
-      await writeFileAtomic(join(out, 'tame.md'), adviceMarkdown(advice, files));
-      await writeFileAtomic(join(out, 'tame.json'), adviceJson(advice, files));
-    } finally {
-      done?.();
-    }
+    // Each file atomically (an interruption removes the temporaries: output/atomic.ts's registry).
+    await prepareFileTarget(join(out, 'tame.png'));
+    await writeFileAtomic(join(out, 'tame.png'), await renderAdvicePlot(advice, top));
+    await writeFileAtomic(join(out, 'tame.md'), adviceMarkdown(advice, files));
+    await writeFileAtomic(join(out, 'tame.json'), adviceJson(advice, files));
     if (!opts.quiet) {
       io.out(formatAdviceTable(advice));
       io.out(`wrote ${join(out, 'tame.md')}, tame.json, tame.png${files.scenario ? `; the winner as ${files.scenario}` : ''}\n`);

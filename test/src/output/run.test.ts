@@ -43,9 +43,9 @@ describe('runScenarioFile', () => {
     const d = dir();
     const file = writeScenario(d, 's.json', SMALL);
     await runScenarioFile(file, join(d, 'o'), {
-      extendSummary: ({ summary, result }) => addSummarySection(summary, 'checks', { count: result.record.names.length }),
+      extendSummary: ({ summary, result }) => addSummarySection(summary, 'checks', { passed: result.record.names.length, failed: 0, results: [] }),
     });
-    expect(JSON.parse(readFileSync(join(d, 'o', 'summary.json'), 'utf8')).checks).toEqual({ count: 3 });
+    expect(JSON.parse(readFileSync(join(d, 'o', 'summary.json'), 'utf8')).checks).toEqual({ passed: 3, failed: 0, results: [] });
   });
 
   it('throws ScenarioError with every problem and creates nothing on bad input', async () => {
@@ -76,12 +76,15 @@ describe('runScenarioFile', () => {
     expect(readdirSync(d).sort()).toEqual(['s.json', 'taken']);
   });
 
+  /** A value JSON cannot hold (a BigInt), slipped past the section's type to make summary.json fail. */
+  const UNSERIALIZABLE = 1n as never;
+
   it('removes the staged files and the folders it created when writing fails', async () => {
     const d = dir();
     const file = writeScenario(d, 's.json', SMALL);
     // A BigInt cannot be serialized: summary.json fails after probes.csv and the PNG were staged.
     const err = await runScenarioFile(file, join(d, 'new', 'out'), {
-      extendSummary: ({ summary }) => addSummarySection(summary, 'broken', 1n),
+      extendSummary: ({ summary }) => addSummarySection(summary, 'crossCheck', UNSERIALIZABLE),
     }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(OutputError);
     expect(existsSync(join(d, 'new'))).toBe(false);
@@ -95,7 +98,7 @@ describe('runScenarioFile', () => {
     await runScenarioFile(file, out);
     const before = readFileSync(join(out, 'probes.csv'), 'utf8');
     await expect(
-      runScenarioFile(file, out, { extendSummary: ({ summary }) => addSummarySection(summary, 'broken', 1n) }),
+      runScenarioFile(file, out, { extendSummary: ({ summary }) => addSummarySection(summary, 'crossCheck', UNSERIALIZABLE) }),
     ).rejects.toBeInstanceOf(OutputError);
     expect(readdirSync(out).sort()).toEqual(['probes.csv', 'summary.json', 'waveforms.png']);
     expect(readFileSync(join(out, 'probes.csv'), 'utf8')).toBe(before);

@@ -120,13 +120,13 @@ describe('summary.json', () => {
 
   it('takes extra sections from other modules and serializes to plain JSON', () => {
     const s = buildSummary({ scenario: summary.scenario, net: demoNet, discretization, record });
-    addSummarySection(s, 'measurements', { rx: { overshoot: 0.1 } });
-    expect(() => addSummarySection(s, 'probes', {})).toThrow(/already/);
+    addSummarySection(s, 'checks', { passed: 1, failed: 0, results: [] });
+    expect(() => addSummarySection(s, 'checks', { passed: 0, failed: 0, results: [] })).toThrow(/already/);
     const back = JSON.parse(summaryToJson(s));
-    expect(back.measurements).toEqual({ rx: { overshoot: 0.1 } });
+    expect(back.checks).toEqual({ passed: 1, failed: 0, results: [] });
     expect(back.probes.rx.crossing50.time).toBeNull();
     expect(summaryToJson(s).endsWith('}\n')).toBe(true);
-    expect(Object.keys(back)).toEqual(['format', 'tool', 'scenario', 'discretization', 'record', 'probes', 'measurements']);
+    expect(Object.keys(back)).toEqual(['format', 'tool', 'scenario', 'discretization', 'record', 'probes', 'checks']);
   });
 });
 
