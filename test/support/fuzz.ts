@@ -35,8 +35,8 @@ class Rng {
 
 /**
  * The demo scenarios (scenarios/*.json and scenarios/ci/*.json) as plain values, and the branched
- * nets of test/fixtures/scenarios (branched-*.json) while no demo has branches of its own, so that
- * receivers, branch items and their names are mutated too.
+ * nets of test/fixtures/scenarios (branched-*.json: a nested stub, probes and checks inside
+ * branches), so that receivers, branch items and their names are mutated too.
  */
 export function demoScenarios(repo: string): { name: string; value: Json }[] {
   const out: { name: string; value: Json }[] = [];
@@ -221,8 +221,8 @@ function commandLine(rng: Rng, value: Json): string[] {
 /** Case `k` of the run seeded with `seed`. */
 export function fuzzCase(demos: readonly { name: string; value: Json }[], seed: number, k: number): FuzzCase {
   const rng = new Rng(Xoshiro128ss.forSample(seed, k));
-  // Branched nets are one seed among many; a quarter of the cases start from one.
-  const branched = demos.filter((d) => d.name.startsWith('branched-'));
+  // A quarter of the cases start from a net with branches (receivers, branch items and their names).
+  const branched = demos.filter((d) => JSON.stringify(d.value).includes('"branch"'));
   const demo = branched.length && rng.chance(0.25) ? rng.pick(branched) : rng.pick(demos);
   const value = structuredClone(demo.value);
   const edits: string[] = [`from ${demo.name}`];
