@@ -38,6 +38,7 @@ export const OUTPUT_NAMES: ReadonlySet<string> = new Set([
   'eye.png',
   'crosscheck.png',
   'report.html',
+  'explore.html',
   'frames',
   'tdr.png',
   'tdr.csv',

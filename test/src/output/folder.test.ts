@@ -18,6 +18,7 @@ import { VIEW_FILES } from '../../../src/views/select.js';
 import { FRAMES_DIR } from '../../../src/views/frames.js';
 import { REPORT_FILE } from '../../../src/report/report.js';
 import { CROSSCHECK_FILE } from '../../../src/crosscheck/plot.js';
+import { EXPLORE_FILE } from '../../../src/explore/page.js';
 import { DEVICE_FILES } from '../../../src/cli/commands/device.js';
 import { SPARAMS_FILES } from '../../../src/output/sparams.js';
 
@@ -138,6 +139,7 @@ describe('writeOutputFolder', () => {
       ...Object.values(SPARAMS_FILES),
       FRAMES_DIR,
       REPORT_FILE,
+      EXPLORE_FILE,
       CROSSCHECK_FILE,
     ]);
     expect([...OUTPUT_NAMES].sort()).toEqual([...written].sort());
