@@ -18,6 +18,7 @@ import { defaultDuration } from '../../sim/discretize.js';
 import type { Net, Part, RouteItem } from '../../sim/model.js';
 import { isBranched, isMultiNet } from '../../sim/route-tree.js';
 import { rampDuration } from '../../sim/signals.js';
+import { WaveHeap } from './wave-heap.js';
 
 export interface LatticeOptions {
   /** Stop following a wave after this many reflections (default 32; passing a junction is not counted). */
@@ -367,45 +368,6 @@ function dcLevels(net: Net, vs: number, route: readonly RouteItem[]): DcLevels {
 
 // ------------------------------------------------------------------------------------- the lattice
 
-/** A binary min-heap of waves keyed by launch time. */
-class WaveHeap {
-  private readonly a: LatticeWave[] = [];
-  get size(): number {
-    return this.a.length;
-  }
-  push(w: LatticeWave): void {
-    const a = this.a;
-    a.push(w);
-    let i = a.length - 1;
-    while (i > 0) {
-      const p = (i - 1) >> 1;
-      if (a[p].t0 <= a[i].t0) break;
-      [a[p], a[i]] = [a[i], a[p]];
-      i = p;
-    }
-  }
-  pop(): LatticeWave | undefined {
-    const a = this.a;
-    if (a.length === 0) return undefined;
-    const top = a[0];
-    const last = a.pop()!;
-    if (a.length > 0) {
-      a[0] = last;
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1, r = l + 1;
-        let m = i;
-        if (l < a.length && a[l].t0 < a[m].t0) m = l;
-        if (r < a.length && a[r].t0 < a[m].t0) m = r;
-        if (m === i) break;
-        [a[m], a[i]] = [a[i], a[m]];
-        i = m;
-      }
-    }
-    return top;
-  }
-}
-
 /**
  * The lattice diagram of `net`, or the reasons it cannot be drawn (reactive or lossy parts, a signal
  * other than a step, no line segment).
@@ -493,7 +455,7 @@ export function latticeDiagram(net: Net, options: LatticeOptions = {}): LatticeR
 
   // Follow the waves in order of launch time. Waves launched on the same segment, in the same
   // direction, at the same time (several paths of equal delay) are merged into one.
-  const heap = new WaveHeap();
+  const heap = new WaveHeap<LatticeWave>();
   const pending = new Map<string, LatticeWave>();
   const key = (seg: number, dir: number, t: number) => `${seg}:${dir}:${t.toPrecision(12)}`;
   const launchWave = (seg: number, dir: 1 | -1, t0: number, a: number, bounces: number) => {

@@ -23,6 +23,7 @@ import { rampDuration } from '../../sim/signals.js';
 import type { DcLevels, LatticeArrival, LatticeBoundary, LatticeDiagram, LatticeOptions, LatticeResult, LatticeSegment, LatticeWave, SideArrival, SourceEdge } from './lattice.js';
 import { toPlateaus, type PlateauStep } from './lattice.js';
 import { mergeWires, nodalInverse, type Conductance } from './resistive-nodes.js';
+import { WaveHeap } from './wave-heap.js';
 
 export interface TreeLatticeOptions extends LatticeOptions {
   /** The receiver whose path is drawn (default: the main receiver). */
@@ -194,42 +195,6 @@ function dcVoltages(c: Circuit, vs: number): (node: number) => number {
   return (node) => v.get(sets.find(node)) ?? 0;
 }
 
-/** A min-heap of waves keyed by launch time. */
-class Heap {
-  private readonly a: TreeWave[] = [];
-  get size(): number {
-    return this.a.length;
-  }
-  push(w: TreeWave): void {
-    const a = this.a;
-    a.push(w);
-    for (let i = a.length - 1; i > 0; ) {
-      const p = (i - 1) >> 1;
-      if (a[p].t0 <= a[i].t0) break;
-      [a[p], a[i]] = [a[i], a[p]];
-      i = p;
-    }
-  }
-  pop(): TreeWave | undefined {
-    const a = this.a;
-    const top = a[0];
-    const last = a.pop();
-    if (a.length > 0 && last) {
-      a[0] = last;
-      for (let i = 0; ; ) {
-        const l = 2 * i + 1, r = l + 1;
-        let m = i;
-        if (l < a.length && a[l].t0 < a[m].t0) m = l;
-        if (r < a.length && a[r].t0 < a[m].t0) m = r;
-        if (m === i) break;
-        [a[m], a[i]] = [a[i], a[m]];
-        i = m;
-      }
-    }
-    return top;
-  }
-}
-
 /** Where the path runs: its live segments with their span from the driver pin. */
 function pathSegments(c: Circuit, path: CircuitPath, delays: readonly number[]): { segments: LatticeSegment[]; index: Map<number, number> } {
   const segments: LatticeSegment[] = [];
@@ -348,7 +313,7 @@ function followWaves(tree: TreeScatter, c: Circuit, view: PathView, limits: Foll
   const { edges, horizon, floor, maxBounces, maxWaves } = limits;
   // every line's waves are followed; the path keeps up to maxWaves of them
   const maxFollowed = 20 * maxWaves;
-  const heap = new Heap();
+  const heap = new WaveHeap<TreeWave>();
   const pending = new Map<string, TreeWave>();
   const key = (seg: number, dir: number, t: number) => `${seg}:${dir}:${t.toPrecision(12)}`;
   const launchWave = (segment: number, direction: 1 | -1, t0: number, a: number, bounces: number) => {
