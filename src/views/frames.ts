@@ -31,6 +31,24 @@ export const FRAME_FILE_PATTERN = /^frame-(\d{4,})\.png$/;
 /** Share of the map's whole voltage range within which a point counts as unchanged (0.5 %). */
 export const ACTIVITY_TOLERANCE = 0.005;
 
+/** `tolerance` of the map's whole voltage range: how close two voltages must be to count as the same. */
+function stillnessBand(map: RouteMapRecord, tolerance: number): number {
+  const d = map.values.data;
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < d.length; i++) {
+    if (d[i] < lo) lo = d[i];
+    if (d[i] > hi) hi = d[i];
+  }
+  return tolerance * (hi - lo);
+}
+
+/** Whether any point of row `r` of the map is more than `eps` from the same point of row `ref`. */
+function rowsDiffer(map: RouteMapRecord, r: number, ref: number, eps: number): boolean {
+  const cols = map.values.shape[1], d = map.values.data;
+  for (let j = 0; j < cols; j++) if (Math.abs(d[r * cols + j] - d[ref * cols + j]) > eps) return true;
+  return false;
+}
+
 /**
  * The rows where the route is active: from the last row before any point leaves its starting value to
  * the first row after which every point stays at its final value, each within `tolerance` of the map's
@@ -38,19 +56,10 @@ export const ACTIVITY_TOLERANCE = 0.005;
  * changes is "active" over all of it.
  */
 export function activeRows(map: RouteMapRecord, tolerance = ACTIVITY_TOLERANCE): [number, number] {
-  const rows = map.values.shape[0], cols = map.values.shape[1];
-  const d = map.values.data;
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < d.length; i++) {
-    if (d[i] < lo) lo = d[i];
-    if (d[i] > hi) hi = d[i];
-  }
-  const eps = tolerance * (hi - lo);
+  const rows = map.values.shape[0];
+  const eps = stillnessBand(map, tolerance);
   if (!(eps > 0) || rows < 2) return [0, Math.max(0, rows - 1)];
-  const differs = (r: number, ref: number) => {
-    for (let j = 0; j < cols; j++) if (Math.abs(d[r * cols + j] - d[ref * cols + j]) > eps) return true;
-    return false;
-  };
+  const differs = (r: number, ref: number) => rowsDiffer(map, r, ref, eps);
   let first = 0;
   while (first < rows - 1 && !differs(first, 0)) first++;
   let last = rows - 1;
@@ -70,20 +79,11 @@ export const QUIET_SHARE = 0.05;
  */
 export function firstBurstRows(map: RouteMapRecord, tolerance = ACTIVITY_TOLERANCE, quietShare = QUIET_SHARE): [number, number] {
   const [a, b] = activeRows(map, tolerance);
-  const rows = map.values.shape[0], cols = map.values.shape[1];
-  const d = map.values.data;
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < d.length; i++) {
-    if (d[i] < lo) lo = d[i];
-    if (d[i] > hi) hi = d[i];
-  }
-  const eps = tolerance * (hi - lo);
+  const rows = map.values.shape[0];
+  const eps = stillnessBand(map, tolerance);
   const quiet = Math.max(3, Math.round(quietShare * rows));
   if (!(eps > 0)) return [a, b];
-  const still = (r: number, ref: number) => {
-    for (let j = 0; j < cols; j++) if (Math.abs(d[r * cols + j] - d[ref * cols + j]) > eps) return false;
-    return true;
-  };
+  const still = (r: number, ref: number) => !rowsDiffer(map, r, ref, eps);
   // from the row after the first movement, the first row that the next `quiet` rows all stay close to
   for (let r = a + 1; r + quiet < b; r++) {
     let k = 1;
