@@ -37,6 +37,7 @@ import { parseShard, shardPointCount, shardPoints } from './spec.js';
 import { checkSweepSize } from './size.js';
 import { parseSweepCsv, sweepCsvChunks, SweepCsvError } from './table.js';
 import { keyedRecord } from '../keyed.js';
+import type { CheckRow } from '../checks/run.js';
 
 export const SWEEP_FILES = { csv: 'sweep.csv', png: 'sweep.png', json: 'sweep.json', best: 'best', worst: 'worst', explore: 'explore.html' } as const;
 
@@ -74,16 +75,8 @@ export interface YieldReport {
   } | null;
 }
 
-/** The deciding check of the worst Monte Carlo sample. */
-export interface WorstCheck {
-  probe: string;
-  metric: string;
-  /** "max 10 %". */
-  limit: string;
-  measured: number | null;
-  measuredText: string;
-  pass: boolean;
-}
+/** The deciding check of the worst Monte Carlo sample: a check table row without its kind and message. */
+export type WorstCheck = Pick<CheckRow, 'probe' | 'metric' | 'limit' | 'measured' | 'measuredText' | 'pass'>;
 
 export interface SweepResultSection {
   pick: PickReport | null;
